@@ -3,7 +3,7 @@
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 
-export DB_NAME="${DB_TEST_NAME:-windowsill_test}"
+TEST_DB_NAME="${DB_TEST_NAME:-windowsill_test}"
 export SMTP_PORT="${TEST_SMTP_PORT:-2535}"
 export E2E_PORT="${E2E_PORT:-4173}"
 export PUBLIC_ORIGIN="http://127.0.0.1:$E2E_PORT"
@@ -22,9 +22,10 @@ if [ ! -x "${CHROMIUM_PATH:-/usr/bin/chromium}" ]; then
   fi
 fi
 
-step "private MariaDB and a fresh test database ($DB_NAME)"
+step "private MariaDB and a fresh test database ($TEST_DB_NAME)"
 bash scripts/db.sh start
 bash scripts/db.sh recreate-test-db
+export DB_NAME="$TEST_DB_NAME"
 npm run --silent db:migrate
 npm run --silent db:seed
 step "local fake SMTP server"
