@@ -1,0 +1,28 @@
+/** Unit and kind labels written by the exporters; each one reads back through parseXUnit / parseYUnit. */
+import type { NormalisedSpectrum, SpectrumKind } from '../types';
+
+export const JCAMP_Y_UNITS: Record<NormalisedSpectrum['yUnit'], string> = {
+	absorbance: 'ABSORBANCE',
+	epsilon: 'MOLAR ABSORPTIVITY (M-1 CM-1)',
+	transmittance: 'TRANSMITTANCE',
+	relative: 'RELATIVE INTENSITY',
+	'W/nm': 'W/NM',
+	'W/m2/nm': 'W/M2/NM',
+	counts: 'COUNTS'
+};
+
+export const CSV_Y_HEADERS: Record<NormalisedSpectrum['yUnit'], string> = {
+	absorbance: 'absorbance',
+	epsilon: 'epsilon (M-1 cm-1)',
+	transmittance: 'transmittance (fraction)',
+	relative: 'relative emission',
+	'W/nm': 'W/nm',
+	'W/m2/nm': 'W/m2/nm',
+	counts: 'counts'
+};
+
+export const JCAMP_DATA_TYPE: Record<SpectrumKind, string> = {
+	absorption: 'UV/VIS SPECTRUM',
+	transmission: 'UV/VIS SPECTRUM',
+	emission: 'EMISSION SPECTRUM'
+};

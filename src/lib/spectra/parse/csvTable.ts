@@ -1,0 +1,71 @@
+/**
+ * Finds the table inside delimited text: delimiter (',', ';' or tab, tried in turn and then passed to
+ * papaparse explicitly), decimal separator, the data block (first run of ≥ 3 all-numeric rows with
+ * ≥ 2 fields), the header row just above it, and the preamble (instrument headers, marker lines).
+ */
+import Papa from 'papaparse';
+import { parseNumberField, stripBom } from './numbers';
+
+export type Delimiter = ',' | ';' | '\t';
+
+export interface DelimitedTable {
+	delimiter: Delimiter;
+	decimalComma: boolean;
+	/** All rows; row i is line i + 1 of the original text. */
+	rows: string[][];
+	/** 0-based row indices of the first and last data rows. */
+	dataStart: number;
+	dataEnd: number;
+	/** 0-based row index of the header, or -1. */
+	headerRow: number;
+	/** Number of columns of the data block. */
+	nColumns: number;
+}
+
+const trimRow = (r: string[]) => {
+	let n = r.length;
+	while (n > 0 && r[n - 1].trim() === '') n--;
+	return n === r.length ? r : r.slice(0, n);
+};
+
+const isNumericRow = (r: string[], decimalComma: boolean) =>
+	r.length >= 2 && r.every((f) => !Number.isNaN(parseNumberField(f, decimalComma)));
+
+/** Returns the table, or undefined when no delimiter yields at least 3 numeric rows. */
+export function findTable(text: string): DelimitedTable | undefined {
+	const clean = stripBom(text).replace(/\r\n|\r/g, '\n');
+	let best: { d: Delimiter; dc: boolean; rows: string[][]; score: number } | undefined;
+	for (const d of [',', ';', '\t'] as Delimiter[]) {
+		const parsed = Papa.parse<string[]>(clean, { delimiter: d, newline: '\n', skipEmptyLines: false, quoteChar: '"' });
+		const rows = parsed.data.map((r) => trimRow(r.map(String)));
+		for (const dc of d === ',' ? [false] : [false, true]) {
+			let score = 0;
+			for (const r of rows) if (isNumericRow(r, dc)) score++;
+			if (score > (best?.score ?? 0)) best = { d, dc, rows, score };
+		}
+	}
+	if (!best || best.score < 3) return undefined;
+	const { rows, dc } = best;
+	const n = rows.length;
+	let dataStart = -1;
+	// First numeric row followed closely by more: ≥ 3 of the 5 rows from it are numeric (a bad value
+	// inside the data must not move the start; it is reported later with its line).
+	for (let i = 0; i < n && dataStart < 0; i++) {
+		if (!isNumericRow(rows[i], dc)) continue;
+		let count = 0;
+		for (let k = i; k < n && k < i + 5; k++) if (isNumericRow(rows[k], dc) && rows[k].length === rows[i].length) count++;
+		if (count >= Math.min(3, best.score)) dataStart = i;
+	}
+	if (dataStart < 0) return undefined;
+	const nColumns = rows[dataStart].length;
+	// Data end: last row whose first field is a number (marker and dash lines after it are ignored).
+	let dataEnd = dataStart;
+	for (let i = dataStart; i < n; i++) if (!Number.isNaN(parseNumberField(rows[i][0] ?? '', dc))) dataEnd = i;
+	let headerRow = -1;
+	for (let i = dataStart - 1; i >= 0; i--) {
+		if (rows[i].length === 0 || rows[i].every((f) => f.trim() === '')) continue;
+		if (rows[i].length >= 2) headerRow = i;
+		break;
+	}
+	return { delimiter: best.d, decimalComma: dc, rows, dataStart, dataEnd, headerRow, nColumns };
+}

@@ -1,0 +1,64 @@
+/**
+ * Entry point for uploads: detects JCAMP-DX (`##TITLE` / `##JCAMP`) or delimited text, refuses
+ * binary or unknown content with `unsupported_format` (HTTP 415 in API.md), applies the caller's
+ * kind/unit choices and never throws (a bug becomes an `internal_error` issue).
+ */
+import type { RawSpectrum, Result, SpectrumKind, XUnit, YUnit } from '../types';
+import { parseDelimited } from './csv';
+import { parseJcamp } from './jcamp';
+
+export interface ParseFileOptions {
+	kind?: SpectrumKind;
+	xUnit?: XUnit;
+	yUnit?: YUnit;
+	/** 0-based file columns to import as y (delimited text only). */
+	columns?: number[];
+	/** Copied into each spectrum's metadata (the caller's value wins over the file's). */
+	concentrationM?: number;
+	pathCm?: number;
+}
+
+const unsupported = (message: string): Result<RawSpectrum[]> => ({ ok: false, issues: [{ severity: 'error', code: 'unsupported_format', message }] });
+
+/** Decodes bytes as UTF-8, falling back to windows-1252 (older instrument exports write µ, ° in it). */
+export function decodeText(bytes: Uint8Array): string | undefined {
+	let controls = 0;
+	for (let i = 0; i < bytes.length; i++) {
+		const b = bytes[i];
+		if (b === 0) return undefined;
+		if (b < 32 && b !== 9 && b !== 10 && b !== 13 && b !== 12) controls++;
+	}
+	if (controls > bytes.length * 0.01) return undefined;
+	try {
+		return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+	} catch {
+		return new TextDecoder('windows-1252').decode(bytes);
+	}
+}
+
+/**
+ * Parses an uploaded spectrum file.
+ * @param bytes - file content; filename - used in messages only (content decides the format)
+ * @param options - the caller's choices, which override what the file says
+ */
+export function parseSpectrumFile(bytes: Uint8Array, filename: string, options: ParseFileOptions = {}): Result<RawSpectrum[]> {
+	try {
+		if (!bytes.length) return unsupported(`${filename}: the file is empty`);
+		const text = decodeText(bytes);
+		if (text === undefined) return unsupported(`${filename}: binary content; upload JCAMP-DX or delimited text (CSV, semicolon, tab)`);
+		const isJcamp = /^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096));
+		const units = { kind: options.kind, xUnit: options.xUnit, yUnit: options.yUnit };
+		const r = isJcamp ? parseJcamp(text, units) : parseDelimited(text, { ...units, columns: options.columns });
+		if (!r.ok) {
+			if (!isJcamp && r.issues.some((i) => i.code === 'unsupported_format')) return unsupported(`${filename}: neither JCAMP-DX nor a table of numbers`);
+			return r;
+		}
+		for (const s of r.value) {
+			if (options.concentrationM !== undefined) s.metadata.concentrationM = options.concentrationM;
+			if (options.pathCm !== undefined) s.metadata.pathCm = options.pathCm;
+		}
+		return r;
+	} catch (e) {
+		return { ok: false, issues: [{ severity: 'error', code: 'internal_error', message: `${filename}: ${(e as Error)?.message ?? e}` }] };
+	}
+}

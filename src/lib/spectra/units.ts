@@ -1,0 +1,85 @@
+/**
+ * Unit recognition and axis / y display conversions.
+ * Constants: CODATA 2018 exact SI values (h, c, e are defined constants since the 2019 SI revision).
+ */
+import type { SpectrumKind, XUnit, YUnit } from './types';
+
+/** Planck constant, J s (CODATA 2018, exact). */
+export const PLANCK_J_S = 6.62607015e-34;
+/** Speed of light in vacuum, m s^-1 (CODATA 2018, exact). */
+export const SPEED_OF_LIGHT_M_S = 299792458;
+/** Elementary charge, C (CODATA 2018, exact). */
+export const ELEMENTARY_CHARGE_C = 1.602176634e-19;
+/** h·c/e in eV nm = 1239.841984… (CODATA 2018). */
+export const HC_EV_NM = ((PLANCK_J_S * SPEED_OF_LIGHT_M_S) / ELEMENTARY_CHARGE_C) * 1e9;
+
+/** Display axes for x. */
+export type Axis = 'nm' | 'cm-1' | 'eV';
+
+/** Converts wavelength (nm) to the given axis: cm⁻¹ = 1e7/λ, eV = hc/(eλ). */
+export function toAxis(wavelengthNm: number, axis: Axis): number {
+	if (axis === 'nm') return wavelengthNm;
+	if (axis === 'cm-1') return 1e7 / wavelengthNm;
+	return HC_EV_NM / wavelengthNm;
+}
+
+/** Converts a value on the given axis back to wavelength in nm (the maps are their own inverse). */
+export function fromAxis(value: number, axis: Axis): number {
+	return toAxis(value, axis);
+}
+
+/** log10 ε from ε (M⁻¹ cm⁻¹); non-positive ε gives -Infinity. */
+export const epsilonToLogEpsilon = (epsilon: number): number => Math.log10(epsilon);
+/** ε (M⁻¹ cm⁻¹) from log10 ε. */
+export const logEpsilonToEpsilon = (logEpsilon: number): number => 10 ** logEpsilon;
+/** %T from decadic absorbance: %T = 100·10^(−A). */
+export const absorbanceToPercentT = (absorbance: number): number => 100 * 10 ** -absorbance;
+/** Decadic absorbance from %T: A = 2 − log10(%T) (IUPAC Gold Book, "absorbance"). */
+export const percentTToAbsorbance = (percentT: number): number => 2 - Math.log10(percentT);
+
+const squash = (s: string) => s.toLowerCase().replace(/[\s_.()[\]{}]/g, '');
+
+/** Recognises an x unit string (`nm`, `NANOMETERS`, `Wavelength (nm)`, `1/CM`, `cm-1`, `MICROMETERS`, `µm`). */
+export function parseXUnit(label: string | undefined): XUnit | undefined {
+	if (!label) return undefined;
+	const s = squash(label);
+	if (/1\/cm|cm-1|cm\^-1|cm⁻¹|wavenumber|percm/.test(s)) return 'cm-1';
+	if (/micromet|microns?$|µm|μm|(^|[^a-z])um$/.test(s)) return 'um';
+	if (/nanomet|nm|wavelength|lambda/.test(s)) return 'nm';
+	return undefined;
+}
+
+export interface YUnitGuess {
+	yUnit: YUnit;
+	kind: SpectrumKind;
+	/** Transmittance whose percent/fraction scale must be decided from the data. */
+	transmittanceScaleUnknown?: boolean;
+	/** The label names a quantity that is not a spectrum (variance, standard deviation). */
+	notSpectrum?: boolean;
+}
+
+/**
+ * Recognises a y unit or column header. Returns undefined when it gives no hint
+ * (e.g. `ARBITRARY UNITS`, a bare number).
+ */
+export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
+	if (!label) return undefined;
+	const raw = label.trim();
+	const s = squash(raw);
+	if (/variance|stddev|std\.?dev|standarddeviation|^sd$|uncertainty|error|sigma/.test(s))
+		return { yUnit: 'relative', kind: 'absorption', notSpectrum: true };
+	if (/log.?(ε|epsilon|e\b|molarabs)|logε|logeps/.test(s)) return { yUnit: 'log-epsilon', kind: 'absorption' };
+	if (/ε|epsilon|molarabs|extinctioncoef|m-1cm-1|l\/mol|lmol-1cm-1|m\^-1cm\^-1/.test(s))
+		return { yUnit: 'epsilon', kind: 'absorption' };
+	if (/%t|percenttrans|transmittance%|transmission%|t%|%$/.test(s) && /t|%/.test(s))
+		return { yUnit: 'transmittance-percent', kind: 'transmission' };
+	if (/transm/.test(s)) return { yUnit: 'transmittance', kind: 'transmission', transmittanceScaleUnknown: true };
+	if (/^a$|absorb|^abs|opticaldensity|^od$/.test(s)) return { yUnit: 'absorbance', kind: 'absorption' };
+	if (/w\/?m-?2\/?nm|wm-2nm-1|w\/m2|wm2|w\.m2|irradiance|extraterrestrial|global|direct/.test(s))
+		return { yUnit: 'W/m2/nm', kind: 'emission' };
+	if (/w\/nm|wnm-1|radiantflux|spectralpower/.test(s)) return { yUnit: 'W/nm', kind: 'emission' };
+	if (/counts|^cts|intensity\(counts\)/.test(s)) return { yUnit: 'counts', kind: 'emission' };
+	if (/emission|fluoresc|luminesc|relativeintensity|intensity|spd|illuminant|daylight|incandescent|cie|\d{4}k/.test(s))
+		return { yUnit: 'relative', kind: 'emission' };
+	return undefined;
+}
