@@ -46,6 +46,6 @@ export default defineConfig({
 				timeout: 60_000,
 				stdout: 'ignore',
 				stderr: 'pipe',
-				env: { ...process.env, HOST: '127.0.0.1', PORT: String(port) } as Record<string, string>
+				env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '25M' } as Record<string, string>
 			}
 });

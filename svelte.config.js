@@ -5,7 +5,10 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 const config = {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter({ out: 'build' }),
+		// BUILD_DIR lets parallel work build into its own folder (default: build).
+		adapter: adapter({ out: process.env.BUILD_DIR ?? 'build' }),
+		// CSRF: our own guard in src/lib/server/csrf.ts (bearer-token scripts may POST files without an Origin).
+		csrf: { trustedOrigins: ['*'] },
 		// A strict CSP the app itself passes: SvelteKit hashes its own inline bootstrap script.
 		csp: {
 			mode: 'auto',

@@ -7,6 +7,10 @@ export DB_NAME="${DB_NAME:-windowsill}"
 export SMTP_PORT="${SMTP_PORT:-2525}"
 export HOST="${HOST:-127.0.0.1}"
 export PORT="${PORT:-3000}"
+# adapter-node refuses bodies above 512 KB unless told otherwise; spectrum files may be up to UPLOAD_LIMIT_MB.
+# Base URL written into e-mailed links (adapter-node would otherwise assume https).
+export PUBLIC_ORIGIN="${PUBLIC_ORIGIN:-http://$HOST:$PORT}"
+export BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-$(( ${UPLOAD_LIMIT_MB:-20} + 5 ))M}"
 
 ensure_node_modules
 step "private MariaDB"

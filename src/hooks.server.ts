@@ -1,6 +1,10 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { closeDb } from '$lib/server/db';
+import { authHandle } from '$lib/server/auth/handle';
+import { closeAuthPool } from '$lib/server/auth/session';
+import { closeMailTransport } from '$lib/server/mail/transport';
+import { csrfGuard } from '$lib/server/csrf';
 
 /** Security headers on every response; the CSP itself comes from svelte.config.js (kit.csp). */
 const securityHeaders: Handle = async ({ event, resolve }) => {
@@ -12,20 +16,17 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-const auth: Handle = async ({ event, resolve }) => {
-	event.locals.user = null;
-	event.locals.session = null;
-	return resolve(event);
-};
-
-export const handle = sequence(securityHeaders, auth);
+// csrfGuard replaces SvelteKit's origin check (svelte.config.js trusts '*'); it lets bearer requests
+// through, which is safe because authHandle never falls back to the cookie when a bearer header is sent.
+export const handle = sequence(securityHeaders, csrfGuard, authHandle);
 
 export const handleError: HandleServerError = ({ error, event }) => {
 	console.error(`[error] ${event.request.method} ${event.url.pathname}`, error);
 	return { message: 'Something went wrong on the server.', code: 'internal' };
 };
 
-// adapter-node does not exit while a mysql2 pool is open: destroy it on shutdown.
+// adapter-node does not exit while a mysql2 pool is open: destroy both pools on shutdown.
 process.on('sveltekit:shutdown', async () => {
-	await closeDb();
+	closeMailTransport();
+	await Promise.allSettled([closeDb(), closeAuthPool()]);
 });

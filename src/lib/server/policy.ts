@@ -79,3 +79,45 @@ export async function defaultGroupFor(locals: App.Locals, min: GroupRole): Promi
 	if (user.siteRole === 'admin' && ms[0]) return { groupId: ms[0].groupId, role: 'admin' };
 	throw forbidden(`This needs the ${min} role in a group.`);
 }
+
+// ---- Group management rules (accounts feature) -------------------------------------------
+
+/** Who may invite, change roles and remove members: the group's leads (and site admins). */
+export function canManageMembers(role: GroupRole | 'admin' | null | undefined): boolean {
+	return role === 'admin' || role === 'lead';
+}
+
+/** Only verified accounts (or admins) may create groups. */
+export function canCreateGroup(user: SessionUser | null): boolean {
+	return !!user && (user.emailVerified || user.siteRole === 'admin');
+}
+
+/**
+ * Why a membership change would leave the group without a lead, or null when it is fine.
+ * `leads` is the current number of leads; `targetRole` the member's role before the change;
+ * `newRole` null means the member leaves or is removed.
+ */
+export function leadProblem(targetRole: GroupRole, newRole: GroupRole | null, leads: number): string | null {
+	if (targetRole === 'lead' && newRole !== 'lead' && leads <= 1) return 'A group needs at least one lead: make someone else lead first.';
+	return null;
+}
+
+/** Throws 403 unless the caller is a site admin. */
+export function requireAdmin(locals: App.Locals): SessionUser {
+	const user = requireUser(locals);
+	if (user.siteRole !== 'admin') throw forbidden('Only site admins may do this.');
+	return user;
+}
+
+/**
+ * The group with this slug and the caller's role in it, requiring at least `min`.
+ * 401 anonymous, 404 when the group does not exist or the caller is not in it (no leak), 403 below `min`.
+ */
+export async function requireGroupBySlug(locals: App.Locals, slug: string, min: GroupRole): Promise<{ group: { id: number; name: string; slug: string; description: string | null }; role: GroupRole | 'admin' }> {
+	requireUser(locals);
+	const row = await db()('groups').where({ slug }).first('id', 'name', 'slug', 'description');
+	if (!row) throw new ApiError(404, 'not_found', 'No such group.');
+	const group = { ...row, id: Number(row.id) };
+	const role = await requireGroupRole(locals, group.id, min);
+	return { group, role };
+}

@@ -51,6 +51,15 @@ describe('parseDelimited on invented fixtures', () => {
 		expect(r.ok).toBe(false);
 		if (!r.ok) expect(r.issues[0]).toMatchObject({ code: 'negative_transmittance', line: 3 });
 	});
+	it('slightly negative %T (instrument noise above −0.2 %T) is read as 0 with a warning naming the line', () => {
+		// common practice: spectrophotometers report small negative %T where a sample blocks completely
+		const r = parseDelimited('nm,%T\n300,-0.05\n301,-0.1\n302,3\n303,4\n304,5\n');
+		expect(r.ok).toBe(true);
+		if (r.ok) {
+			expect(r.value[0].y[0]).toBe(0);
+			expect(r.warnings.find((w) => w.code === 'negative_transmittance_noise')).toMatchObject({ line: 2 });
+		}
+	});
 	it('fewer than 5 points is refused', () => {
 		const r = parseDelimited('nm,A\n300,0.1\n301,0.2\n302,0.3\n');
 		expect(r.ok).toBe(false);

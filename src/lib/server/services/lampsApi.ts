@@ -1,0 +1,98 @@
+/** Orchestration of /api/lamps and the /lamps pages: validate → authorise → persist → describe. */
+import { lampCreateSchema, lampPatchSchema } from '$lib/schemas/lamps';
+import { findLamp, insertLamp, listLamps, updateLampIfVersion, type LampRow } from '$lib/server/db/lamps';
+import { ApiError, notFound, zodToApiError } from '$lib/server/http';
+import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
+import { groupForNewRow, requireMemberSomewhere } from './groupChoice';
+import { describeLamp, describeModel, resolveLampModel, vesselPowerW } from './lamps';
+
+/** The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS). */
+export async function lampToApi(lamp: LampRow, locals: App.Locals) {
+	let derived: { peakNm: number | null; photonFluxEinsteinPerS: number | null; problem?: string } = { peakNm: null, photonFluxEinsteinPerS: null };
+	try {
+		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp));
+		derived = { peakNm: d.peakNm, photonFluxEinsteinPerS: d.photonFluxEinsteinPerS };
+	} catch (e) {
+		derived.problem = e instanceof Error ? e.message : String(e);
+	}
+	return {
+		id: lamp.id,
+		groupId: lamp.groupId,
+		name: lamp.name,
+		powerW: lamp.powerW,
+		couplingFactor: lamp.couplingFactor,
+		distanceNote: lamp.distanceNote,
+		notes: lamp.notes,
+		model: lamp.model,
+		modelLabel: describeModel(lamp.model),
+		version: lamp.version,
+		...derived
+	};
+}
+
+/** Lamps of every group the caller belongs to (401 when anonymous). */
+export async function listLampsFor(locals: App.Locals): Promise<LampRow[]> {
+	const user = requireUser(locals);
+	const ms = await membershipsOf(user.id);
+	return listLamps(ms.map((m) => m.groupId));
+}
+
+/** A lamp the caller may see (404 otherwise, never revealing another group's lamp). */
+export async function visibleLamp(locals: App.Locals, idParam: string | undefined): Promise<LampRow> {
+	const user = requireUser(locals);
+	const id = /^\d{1,10}$/.test(idParam ?? '') ? Number(idParam) : 0;
+	const lamp = id ? await findLamp(id) : null;
+	if (!lamp) throw notFound('No such lamp.');
+	if (user.siteRole !== 'admin' && !(await membershipsOf(user.id)).some((m) => m.groupId === lamp.groupId)) throw notFound('No such lamp.');
+	return lamp;
+}
+
+/** Creates a lamp in the caller's group (member+). Validates the model by computing it. */
+export async function createLamp(locals: App.Locals, body: unknown): Promise<LampRow> {
+	await requireMemberSomewhere(locals);
+	const parsed = lampCreateSchema.safeParse(body);
+	if (!parsed.success) throw zodToApiError(parsed.error);
+	const input = parsed.data;
+	const groupId = input.groupId ?? (await groupForNewRow(locals));
+	await requireGroupRole(locals, groupId, 'member');
+	checkComputable(await resolveLampModel(input.model, locals), input.powerW);
+	try {
+		const id = await insertLamp({
+			groupId,
+			ownerId: locals.user!.id,
+			name: input.name,
+			model: input.model,
+			powerW: input.powerW,
+			couplingFactor: input.couplingFactor ?? 1,
+			distanceNote: input.distanceNote ?? null,
+			notes: input.notes ?? null
+		});
+		return (await findLamp(id))!;
+	} catch (e) {
+		if ((e as { code?: string }).code === 'ER_DUP_ENTRY') throw new ApiError(409, 'duplicate', `The group already has a lamp named “${input.name}”.`, { field: 'name' });
+		throw e;
+	}
+}
+
+/** Changes a lamp (member+ of its group); `version` guards against stale saves (409). */
+export async function patchLamp(locals: App.Locals, idParam: string | undefined, body: unknown): Promise<LampRow> {
+	const lamp = await visibleLamp(locals, idParam);
+	const role = await requireGroupRole(locals, lamp.groupId, 'member');
+	if (role !== 'admin' && !roleAtLeast(role, 'member')) throw new ApiError(403, 'forbidden', 'Members and leads may change lamps.');
+	const parsed = lampPatchSchema.safeParse(body);
+	if (!parsed.success) throw zodToApiError(parsed.error);
+	const { version, ...patch } = parsed.data;
+	if (patch.model || patch.powerW) checkComputable(await resolveLampModel(patch.model ?? lamp.model, locals), patch.powerW ?? lamp.powerW);
+	const changed = await updateLampIfVersion(lamp.id, version ?? lamp.version, patch);
+	if (!changed) throw new ApiError(409, 'version_conflict', 'Someone changed this lamp since you loaded it; reload and apply your change again.', { field: 'version' });
+	return (await findLamp(lamp.id))!;
+}
+
+function checkComputable(model: Parameters<typeof describeLamp>[0], powerW: number) {
+	try {
+		describeLamp(model, powerW);
+	} catch (e) {
+		const msg = e instanceof Error ? e.message : String(e);
+		throw new ApiError(422, 'invalid_model', `model.${msg}`, { field: `model.${msg.split(':')[0]}` });
+	}
+}

@@ -1,0 +1,118 @@
+/**
+ * Upload pipeline, persisting part: one transaction per file — duplicate check (409 naming the
+ * existing spectrum), one `spectra` row per prepared spectrum, its tags and a `create` revision.
+ * A failure rolls everything back. Used by POST /api/spectra and by the demo seed alike.
+ */
+import { createHash } from 'node:crypto';
+import type { Knex } from 'knex';
+import { vectorToBuffer } from '../../spectra/grid';
+import type { ParseIssue } from '../../spectra/types';
+import { isValidCas, type UploadMetadata } from '../../schemas/spectra';
+import { ApiError } from '../http';
+import { findSpectraBySha, findSpectrumById, insertSpectrum, type NewSpectrumRow } from '../db/spectra';
+import { float64ToBuffer } from '../db/spectraBlobs';
+import { insertRevision } from '../db/spectrumRevisions';
+import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db/tags';
+import type { PreparedSpectrum } from './spectraPrepare';
+import { spectrumToApi } from './spectraView';
+
+export interface StoreInput {
+	groupId: number;
+	ownerId: string;
+	bytes: Uint8Array;
+	filename: string;
+	meta: UploadMetadata;
+	spectra: PreparedSpectrum[];
+	warnings: ParseIssue[];
+}
+
+const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp' } as const;
+
+/** The name of the i-th spectrum of a file: metadata.names[i], metadata.name, the block/column title, the file name. */
+function nameFor(input: StoreInput, s: PreparedSpectrum, i: number): string {
+	const given = input.meta.names?.[i]?.trim();
+	if (given) return given;
+	const many = input.spectra.length > 1;
+	const base = input.meta.name?.trim() || (typeof s.raw.metadata.title === 'string' ? s.raw.metadata.title : '') || input.filename.replace(/\.[^.]+$/, '');
+	return (many ? `${base} — ${s.raw.label}` : base).slice(0, 200);
+}
+
+/** Builds the row of one spectrum (metadata wins over the file). */
+function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: string, warnings: ParseIssue[]): NewSpectrumRow {
+	const m = input.meta;
+	const md = s.raw.metadata;
+	const fileCas = typeof md.cas === 'string' && isValidCas(md.cas) ? md.cas : null;
+	const str = (v: unknown) => (typeof v === 'string' && v.trim() ? v.trim() : null);
+	return {
+		group_id: input.groupId,
+		owner_id: input.ownerId,
+		name: nameFor(input, s, i),
+		synonyms: JSON.stringify(m.synonyms ?? []),
+		cas: m.cas ?? fileCas,
+		part: m.part ?? DEFAULT_PART[s.norm.kind],
+		kind: s.norm.kind,
+		solvent: m.solvent ?? str(md.solvent),
+		concentration_m: md.concentrationM ?? null,
+		path_cm: md.pathCm ?? null,
+		thickness_mm: m.thicknessMm ?? md.thicknessMm ?? null,
+		temperature_c: m.temperatureC ?? md.temperatureC ?? null,
+		instrument: (m.instrument ?? str(md.instrument) ?? str(md.origin))?.slice(0, 200) ?? null,
+		notes: m.notes ?? null,
+		visibility: m.visibility ?? 'group',
+		x_original: float64ToBuffer(s.raw.x),
+		y_original: float64ToBuffer(s.raw.y),
+		x_unit_original: s.raw.xUnit,
+		y_unit_original: s.raw.yUnit,
+		x_nm: float64ToBuffer(s.norm.x),
+		y_normalised: float64ToBuffer(s.norm.y),
+		y_unit: s.norm.yUnit,
+		point_count: s.norm.x.length,
+		file_bytes: Buffer.from(input.bytes),
+		file_name: input.filename.slice(0, 255),
+		file_sha256: sha256,
+		block_index: s.blockIndex,
+		block_label: s.raw.label.slice(0, 200),
+		search_vector: Buffer.from(vectorToBuffer(s.derived.searchVector)),
+		lambda_max_nm: s.derived.lambdaMaxNm,
+		value_at_max: s.derived.valueAtMax,
+		edge_nm: s.derived.edgeNm,
+		cutoff10_nm: s.derived.cutoff10Nm,
+		cutoff50_nm: s.derived.cutoff50Nm,
+		peaks: JSON.stringify(s.derived.peaks),
+		triplet_energy_kj_per_mol: m.tripletEnergyKjPerMol ?? null,
+		excited_state_potentials: JSON.stringify(m.excitedStatePotentials ?? []),
+		warnings: JSON.stringify(warnings.filter((w) => w.block === undefined || w.block === s.raw.index).map(({ code, message, line }) => ({ code, message, line })))
+	};
+}
+
+/** SHA-256 of the file bytes, hex. */
+export const sha256Hex = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
+
+/**
+ * Stores every prepared spectrum of one file in one transaction.
+ * @throws ApiError 409 when the group already holds this file (names the existing spectrum)
+ */
+export async function storeSpectra(conn: Knex, input: StoreInput) {
+	const sha = sha256Hex(input.bytes);
+	const ids = await conn.transaction(async (trx) => {
+		const existing = await findSpectraBySha(trx, input.groupId, sha);
+		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
+		if (clash)
+			throw new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
+		const tagNames = cleanTags(input.meta.tags ?? []);
+		await insertMissingTags(trx, tagNames);
+		const tagIds = await findTagIds(trx, tagNames);
+		const out: number[] = [];
+		for (let i = 0; i < input.spectra.length; i++) {
+			const id = await insertSpectrum(trx, rowFor(input, input.spectra[i], i, sha, input.warnings));
+			await addSpectrumTags(trx, id, tagIds);
+			await insertRevision(trx, { spectrumId: id, version: 1, action: 'create', userId: input.ownerId, changes: null });
+			out.push(id);
+		}
+		return out;
+	});
+	const tags = cleanTags(input.meta.tags ?? []);
+	const items = [];
+	for (const id of ids) items.push(spectrumToApi((await findSpectrumById(id, conn))!, tags));
+	return { items, warnings: input.warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
+}

@@ -1,0 +1,96 @@
+/**
+ * POST /api/spectra and the upload page: who may upload where, the metadata JSON, then
+ * parse → validate → (preview | persist). A preview stores nothing.
+ */
+import { db } from '../db/index';
+import { findGroupIds } from '../db/spectra';
+import { ApiError, zodToApiError } from '../http';
+import { defaultGroupFor, requireGroupRole, requireUser } from '../policy';
+import { uploadMetadataSchema, type UploadMetadata } from '../../schemas/spectra';
+import { inspectDelimited } from '../../spectra/parse/csvInspect';
+import { decodeText } from '../../spectra/parse/index';
+import { prepareSpectra, type PreparedSpectrum } from './spectraPrepare';
+import { storeSpectra } from './spectraStore';
+
+/** Reads the optional `metadata` form field (JSON). */
+export function readUploadMetadata(text: unknown): UploadMetadata {
+	if (text == null || text === '') return {};
+	if (typeof text !== 'string') throw new ApiError(400, 'invalid', 'metadata must be a JSON text field', { field: 'metadata' });
+	let raw: unknown;
+	try {
+		raw = JSON.parse(text);
+	} catch {
+		throw new ApiError(400, 'bad_json', 'metadata is not valid JSON', { field: 'metadata' });
+	}
+	const r = uploadMetadataSchema.safeParse(raw);
+	if (!r.success) throw zodToApiError(r.error);
+	return r.data;
+}
+
+/** The group the upload goes to; 403 for viewers, 404 for a group the caller is not in. */
+async function targetGroup(locals: App.Locals, group: UploadMetadata['group']): Promise<number> {
+	requireUser(locals);
+	if (group === undefined) return (await defaultGroupFor(locals, 'member')).groupId;
+	const [id] = await findGroupIds([String(group)]);
+	if (!id) throw new ApiError(404, 'not_found', 'No such group.', { field: 'group' });
+	await requireGroupRole(locals, id, 'member');
+	return id;
+}
+
+/** Every n-th point so a preview plot stays small (≤ maxPoints). */
+function thin(x: Float64Array, y: Float64Array, maxPoints = 400) {
+	const step = Math.max(1, Math.ceil(x.length / maxPoints));
+	const xs: number[] = [];
+	const ys: number[] = [];
+	for (let i = 0; i < x.length; i += step) {
+		xs.push(x[i]);
+		ys.push(y[i]);
+	}
+	return { x: xs, y: ys };
+}
+
+const previewOf = (s: PreparedSpectrum, i: number) => ({
+	index: i,
+	blockIndex: s.blockIndex,
+	column: s.raw.column ?? null,
+	label: s.raw.label,
+	kind: s.norm.kind,
+	xUnit: s.raw.xUnit,
+	yUnit: s.raw.yUnit,
+	normalisedYUnit: s.norm.yUnit,
+	pointCount: s.norm.x.length,
+	fromNm: s.norm.x[0],
+	toNm: s.norm.x[s.norm.x.length - 1],
+	lambdaMaxNm: s.derived.lambdaMaxNm,
+	edgeNm: s.derived.edgeNm,
+	cutoff50Nm: s.derived.cutoff50Nm,
+	fileMetadata: s.raw.metadata,
+	...thin(s.norm.x, s.norm.y)
+});
+
+/**
+ * Handles one uploaded file.
+ * @param preview - true: parse and answer what would be stored, store nothing
+ * @returns `{ items, warnings }` (saved) or `{ preview: [...], table, warnings }`
+ */
+export async function uploadSpectrumFile(locals: App.Locals, file: unknown, metadataText: unknown, preview = false) {
+	const meta = readUploadMetadata(metadataText);
+	const groupId = await targetGroup(locals, meta.group);
+	if (!(file instanceof Blob) || typeof (file as File).name !== 'string') throw new ApiError(400, 'invalid', 'file: attach the spectrum file as multipart field "file"', { field: 'file' });
+	const f = file as File;
+	const bytes = new Uint8Array(await f.arrayBuffer());
+	const filename = f.name || 'upload';
+	const { spectra, warnings } = prepareSpectra(bytes, filename, meta);
+	if (preview) {
+		const text = decodeText(bytes.subarray(0, 200_000));
+		const table = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6) : null;
+		return { filename, preview: spectra.map(previewOf), table: table?.ok ? table.value : null, warnings: warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
+	}
+	try {
+		return await storeSpectra(db(), { groupId, ownerId: locals.user!.id, bytes, filename, meta, spectra, warnings });
+	} catch (e) {
+		// Two uploads of the same file at once: the unique key answers for the loser.
+		if ((e as { code?: string }).code === 'ER_DUP_ENTRY') throw new ApiError(409, 'duplicate', `${filename} is already in the Library of this group`, { field: 'file' });
+		throw e;
+	}
+}

@@ -1,0 +1,81 @@
+/**
+ * Filters on the stored 1 nm search vectors (190–1100 nm, index = λ − 190):
+ * "absorbs at λ with at least A or ε" and "transparent above λ".
+ */
+import { GRID_FROM_NM, SEARCH_LENGTH } from '../../spectra/grid';
+
+/** Linear interpolation of the vector at wavelength λ (nm); 0 outside 190–1100 nm. */
+export function vectorAt(v: Float32Array, wavelengthNm: number): number {
+	const p = wavelengthNm - GRID_FROM_NM;
+	if (p < 0 || p > SEARCH_LENGTH - 1) return 0;
+	const i = Math.floor(p);
+	const t = p - i;
+	return i + 1 < v.length ? v[i] * (1 - t) + v[i + 1] * t : v[i];
+}
+
+export interface AbsorbsAtRule {
+	wavelengthNm: number;
+	minAbsorbance?: number;
+	minEpsilon?: number;
+}
+
+/** The row fields the rules read. */
+export interface VectorRow {
+	kind: string;
+	y_unit: string;
+	concentration_m: number | null;
+	path_cm: number | null;
+}
+
+/**
+ * Absorbance (if known) and ε (if known) of an absorption spectrum at λ. A = ε·c·l (Beer–Lambert)
+ * when ε, concentration and path are stored.
+ */
+export function absorptionAt(row: VectorRow, v: Float32Array, wavelengthNm: number): { absorbance?: number; epsilon?: number } {
+	const y = vectorAt(v, wavelengthNm);
+	if (row.y_unit === 'absorbance') return { absorbance: y };
+	if (row.y_unit !== 'epsilon') return {};
+	const cl = row.concentration_m && row.path_cm ? row.concentration_m * row.path_cm : undefined;
+	return { epsilon: y, ...(cl ? { absorbance: y * cl } : {}) };
+}
+
+/**
+ * Whether an absorption spectrum absorbs at λ: with at least `minAbsorbance` OR at least `minEpsilon`
+ * where given; with neither threshold, at least 10 % of its own maximum (common practice).
+ */
+export function absorbsAt(row: VectorRow, v: Float32Array, rule: AbsorbsAtRule): boolean {
+	if (row.kind !== 'absorption') return false;
+	const at = absorptionAt(row, v, rule.wavelengthNm);
+	if (rule.minAbsorbance === undefined && rule.minEpsilon === undefined) {
+		let max = 0;
+		for (let i = 0; i < v.length; i++) if (v[i] > max) max = v[i];
+		const y = vectorAt(v, rule.wavelengthNm);
+		return max > 0 && y >= 0.1 * max;
+	}
+	const okA = rule.minAbsorbance !== undefined && at.absorbance !== undefined && at.absorbance >= rule.minAbsorbance;
+	const okE = rule.minEpsilon !== undefined && at.epsilon !== undefined && at.epsilon >= rule.minEpsilon;
+	return okA || okE;
+}
+
+/**
+ * Whether a spectrum lets light through above λ: absorption — everywhere above λ below 5 % of its
+ * maximum; transmission — T ≥ 0.5 wherever it was measured above λ. Emission spectra never match.
+ */
+export function transparentAbove(row: VectorRow, v: Float32Array, wavelengthNm: number): boolean {
+	const start = Math.max(0, Math.ceil(wavelengthNm - GRID_FROM_NM));
+	if (row.kind === 'transmission') {
+		let measured = 0;
+		for (let i = start; i < v.length; i++) {
+			if (v[i] === 0) continue; // outside the measured range
+			measured++;
+			if (v[i] < 0.5) return false;
+		}
+		return measured > 0;
+	}
+	if (row.kind !== 'absorption') return false;
+	let max = 0;
+	for (let i = 0; i < v.length; i++) if (v[i] > max) max = v[i];
+	if (!(max > 0)) return false;
+	for (let i = start; i < v.length; i++) if (v[i] > 0.05 * max) return false;
+	return true;
+}

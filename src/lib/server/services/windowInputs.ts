@@ -1,0 +1,107 @@
+/**
+ * Puts the Window finder's ingredients on the 0.5 nm computation grid (PRODUCT.md): species ε from library spectra,
+ * solvent absorbance per cm (measured spectrum when linked, else the cut-off edge model), wall transmission at the
+ * chosen thickness, lamp photon flux per nm (scaled to the latest calibration when one exists).
+ */
+import { COMPUTATION_GRID, resampleOnto } from '$lib/irradiation/wavelengthGrid';
+import { solventAbsorbanceOnGrid } from '$lib/irradiation/solvents';
+import { wallTransmissionOnGrid } from '$lib/irradiation/walls';
+import { getSolvent } from '$lib/server/db/solvents';
+import { getWallMaterial } from '$lib/server/db/wallMaterials';
+import { findLamp, listLampCalibrations, listLamps } from '$lib/server/db/lamps';
+import { findSpectrumById, type SpectrumRow } from '$lib/server/db/spectra';
+import { bufferToFloat64 } from '$lib/server/db/spectraBlobs';
+import { ApiError } from '$lib/server/http';
+import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
+import { visibleSpectrum, type Caller } from './spectraAccess';
+
+export const GRID = COMPUTATION_GRID;
+
+const unprocessable = (field: string, message: string) => new ApiError(422, 'invalid', message, { field });
+
+/**
+ * Decadic molar absorptivity ε (M⁻¹ cm⁻¹) of an absorption spectrum on the grid. Stored ε is used as is; stored
+ * absorbance becomes ε = A/(c·l) with the measured concentration and path (Beer–Lambert). Outside the measured range ε = 0.
+ */
+export function epsilonOnGrid(row: SpectrumRow, field: string): Float64Array {
+	if (row.kind !== 'absorption') throw unprocessable(field, `Spectrum ${row.id} (“${row.name}”) is a ${row.kind} spectrum; an absorber needs an absorption spectrum.`);
+	const x = bufferToFloat64(row.x_nm);
+	const y = bufferToFloat64(row.y_normalised);
+	let scale = 1;
+	if (row.y_unit !== 'epsilon') {
+		const c = Number(row.concentration_m);
+		const l = Number(row.path_cm);
+		if (!(c > 0 && l > 0)) {
+			throw unprocessable(field, `Spectrum ${row.id} (“${row.name}”) is stored as absorbance without concentration and path, so ε is unknown: add them to its metadata.`);
+		}
+		scale = 1 / (c * l);
+	}
+	const eps = resampleOnto(x, y, GRID, 0);
+	for (let i = 0; i < eps.length; i++) eps[i] = Math.max(0, eps[i] * scale);
+	return eps;
+}
+
+/** Loads a spectrum the caller may see (404 otherwise, as API.md asks) and returns it with ε on the grid. */
+export async function absorberOnGrid(locals: App.Locals, spectrumId: number, field: string) {
+	const { row } = await visibleSpectrum(locals, String(spectrumId));
+	if (row.deleted_at) throw new ApiError(404, 'not_found', 'No such spectrum.', { field });
+	return { row, epsilon: epsilonOnGrid(row, field) };
+}
+
+/** Solvent absorbance per cm on the grid and how it was obtained. */
+export async function solventOnGrid(solventId: number, field = 'solvent.id') {
+	const s = await getSolvent(solventId);
+	if (!s) throw unprocessable(field, `${field}: no solvent with id ${solventId}.`);
+	if (s.spectrumId) {
+		const row = await findSpectrumById(s.spectrumId);
+		if (row && !row.deleted_at && row.kind === 'absorption') {
+			const x = bufferToFloat64(row.x_nm);
+			const y = bufferToFloat64(row.y_normalised);
+			const l = Number(row.path_cm) > 0 ? Number(row.path_cm) : 1;
+			const a = resampleOnto(x, y, GRID, 0);
+			for (let i = 0; i < a.length; i++) a[i] = Math.max(0, a[i] / l);
+			return { solvent: s, absorbancePerCm: a, basis: `measured spectrum #${row.id}` as string };
+		}
+	}
+	const a = solventAbsorbanceOnGrid(s.cutoffNm, GRID.fromNm, GRID.stepNm, GRID.count, 1);
+	return { solvent: s, absorbancePerCm: a, basis: `cut-off edge model (λc = ${s.cutoffNm} nm; ${s.status})` };
+}
+
+/** Wall transmission on the grid at `thicknessMm` (reference materials and the caller's groups' own). */
+export async function wallOnGrid(materialId: number, thicknessMm: number, groupIds: number[], field = 'wall.materialId') {
+	const m = await getWallMaterial(materialId, groupIds);
+	if (!m) throw unprocessable(field, `${field}: no wall material with id ${materialId}.`);
+	return { material: m, transmission: wallTransmissionOnGrid(m.model, thicknessMm, GRID.fromNm, GRID.stepNm, GRID.count) };
+}
+
+/** The requested lamps (default: all of the caller's groups' lamps) with photon flux per nm at the vessel. */
+export async function lampsOnGrid(locals: App.Locals, caller: Caller, ids: number[] | undefined) {
+	const groupIds = caller.memberships.map((m) => m.groupId);
+	let lamps;
+	if (ids && ids.length) {
+		lamps = [];
+		for (const [k, id] of ids.entries()) {
+			const lamp = await findLamp(id);
+			if (!lamp || (!caller.reader.isAdmin && !groupIds.includes(lamp.groupId))) throw unprocessable(`lamps[${k}]`, `lamps[${k}]: no lamp with id ${id} in your groups.`);
+			lamps.push(lamp);
+		}
+	} else {
+		lamps = await listLamps(groupIds);
+	}
+	if (!lamps.length) throw unprocessable('lamps', 'No lamps to compare: add a lamp to your group or pick some.');
+	const out = [];
+	for (const lamp of lamps) {
+		const model = await resolveLampModel(lamp.model, locals);
+		const d = describeLamp(model, vesselPowerW(lamp), GRID);
+		let q = d.photonFluxPerNm;
+		let basis = 'model × power × coupling';
+		const [latest] = await listLampCalibrations(lamp.id);
+		if (latest && d.photonFluxEinsteinPerS > 0) {
+			const k = latest.photonFluxEinsteinPerS / d.photonFluxEinsteinPerS;
+			q = q.map((v) => v * k);
+			basis = `calibrated (${latest.method}, ${new Date(latest.measuredAt).toISOString().slice(0, 10)})`;
+		}
+		out.push({ lamp, model, photonFluxPerNm: q, peakNm: d.peakNm, cautions: d.cautions, basis });
+	}
+	return out;
+}

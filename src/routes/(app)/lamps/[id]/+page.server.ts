@@ -1,0 +1,63 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { listLampCalibrations } from '$lib/server/db/lamps';
+import { ApiError } from '$lib/server/http';
+import { membershipsOf, roleAtLeast } from '$lib/server/policy';
+import { describeLamp, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
+import { failureOf, formValues, lampBodyFromForm } from '$lib/server/services/lampForm';
+import { lampToApi, patchLamp, visibleLamp } from '$lib/server/services/lampsApi';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
+	let lamp;
+	try {
+		lamp = await visibleLamp(locals, params.id);
+	} catch (e) {
+		if (e instanceof ApiError) error(e.status, e.message);
+		throw e;
+	}
+	const api = await lampToApi(lamp, locals);
+	let plot: { x: number[]; power: number[]; flux: number[] } | null = null;
+	let bands: { band: string; fromNm: number; toNm: number; fraction: number }[] = [];
+	let cautions: Awaited<ReturnType<typeof describeLamp>>['cautions'] = [];
+	try {
+		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp));
+		// Plot on a 1 nm grid (every second point of the 0.5 nm planner grid).
+		const x: number[] = [], power: number[] = [], flux: number[] = [];
+		for (let i = 0; i < d.spectrum.wavelengthNm.length; i += 2) {
+			x.push(d.spectrum.wavelengthNm[i]);
+			power.push(d.spectrum.powerWPerNm[i] * 1e3);
+			flux.push(d.photonFluxPerNm[i] * 1e9);
+		}
+		plot = { x, power, flux };
+		bands = d.bands.map((b) => ({ band: b.band, fromNm: b.fromNm, toNm: b.toNm, fraction: b.fraction }));
+		cautions = d.cautions;
+	} catch {
+		// lampToApi already reports the problem in api.problem
+	}
+	const ms = await membershipsOf(locals.user.id);
+	const role = ms.find((m) => m.groupId === lamp.groupId)?.role;
+	return {
+		lamp: api,
+		plot,
+		bands,
+		cautions,
+		calibrations: await listLampCalibrations(lamp.id),
+		canEdit: locals.user.siteRole === 'admin' || roleAtLeast(role, 'member')
+	};
+};
+
+export const actions: Actions = {
+	update: async ({ request, locals, params, url }) => {
+		if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
+		const form = await request.formData();
+		try {
+			await patchLamp(locals, params.id, lampBodyFromForm(form));
+		} catch (e) {
+			const f = failureOf(e);
+			if (!f) throw e;
+			return fail(f.status, { values: formValues(form), message: f.message, field: f.field });
+		}
+		return { saved: true };
+	}
+};

@@ -1,0 +1,12 @@
+import { redirect } from '@sveltejs/kit';
+import { invalidateSession } from '$lib/server/auth/session';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = () => redirect(303, '/');
+
+export const actions: Actions = {
+	default: async ({ locals, cookies, url }) => {
+		if (locals.session?.via === 'cookie') await invalidateSession(locals.session.id, cookies, url);
+		redirect(303, '/signin');
+	}
+};
