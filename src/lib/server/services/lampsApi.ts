@@ -1,9 +1,9 @@
 /** Orchestration of /api/lamps and the /lamps pages: validate → authorise → persist → describe. */
 import { lampCreateSchema, lampPatchSchema } from '$lib/schemas/lamps';
 import { findLamp, insertLamp, listLamps, updateLampIfVersion, type LampRow } from '$lib/server/db/lamps';
-import { ApiError, notFound, zodToApiError } from '$lib/server/http';
+import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
-import { groupForNewRow, requireMemberSomewhere } from './groupChoice';
+import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
 import { describeLamp, describeModel, resolveLampModel, vesselPowerW } from './lamps';
 
 /** The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS). */
@@ -38,14 +38,7 @@ export async function listLampsFor(locals: App.Locals): Promise<LampRow[]> {
 }
 
 /** A lamp the caller may see (404 otherwise, never revealing another group's lamp). */
-export async function visibleLamp(locals: App.Locals, idParam: string | undefined): Promise<LampRow> {
-	const user = requireUser(locals);
-	const id = /^\d{1,10}$/.test(idParam ?? '') ? Number(idParam) : 0;
-	const lamp = id ? await findLamp(id) : null;
-	if (!lamp) throw notFound('No such lamp.');
-	if (user.siteRole !== 'admin' && !(await membershipsOf(user.id)).some((m) => m.groupId === lamp.groupId)) throw notFound('No such lamp.');
-	return lamp;
-}
+export const visibleLamp = (locals: App.Locals, idParam: string | undefined) => loadGroupRow(locals, idParam, findLamp, 'lamp');
 
 /** Creates a lamp in the caller's group (member+). Validates the model by computing it. */
 export async function createLamp(locals: App.Locals, body: unknown): Promise<LampRow> {

@@ -4,9 +4,9 @@
  */
 import { planCreateSchema, planPatchSchema, planReviewSchema } from '$lib/schemas/plans';
 import { findPlan, insertPlan, listPlans, updatePlanIfVersion, type PlanRow, type PlanState } from '$lib/server/db/plans';
-import { ApiError, forbidden, notFound, zodToApiError } from '$lib/server/http';
+import { ApiError, forbidden, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
-import { groupForNewRow, requireMemberSomewhere } from './groupChoice';
+import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
 import { computeWindowFor } from './window';
 
 /** Plans of the caller's groups. */
@@ -16,14 +16,7 @@ export async function plansFor(locals: App.Locals): Promise<PlanRow[]> {
 }
 
 /** A plan the caller may see (404 otherwise). */
-export async function visiblePlan(locals: App.Locals, idParam: string | undefined): Promise<PlanRow> {
-	const user = requireUser(locals);
-	const id = /^\d{1,10}$/.test(idParam ?? '') ? Number(idParam) : 0;
-	const plan = id ? await findPlan(id) : null;
-	if (!plan) throw notFound('No such plan.');
-	if (user.siteRole !== 'admin' && !(await membershipsOf(user.id)).some((m) => m.groupId === plan.groupId)) throw notFound('No such plan.');
-	return plan;
-}
+export const visiblePlan = (locals: App.Locals, idParam: string | undefined) => loadGroupRow(locals, idParam, findPlan, 'plan');
 
 /** Saves a draft plan (member+); the results are computed here from the inputs, never taken from the client. */
 export async function createPlan(locals: App.Locals, body: unknown): Promise<PlanRow> {
