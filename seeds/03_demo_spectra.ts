@@ -41,7 +41,7 @@ const potentials = (red: number, ox: number) => [
 
 const SPECTRA: DemoSpectrum[] = [
 	// substrates
-	{ file: 'pinewick-ester.csv', header: ε, y: (l) => bandE(l, 256, 4200, 14200) + bandE(l, 212, 5000, 21000), owner: 'member', meta: { name: 'Pinewick ester', part: 'substrate', solvent: 'acetonitrile', synonyms: ['PW-ester'], tags: ['uv-c only', 'demo'], visibility: 'group', notes: 'Absorbs only below about 290 nm: needs UV-C or a sensitiser.' } },
+	{ file: 'pinewick-ester.csv', header: ε, y: (l) => bandE(l, 256, 4200, 14200) + bandE(l, 212, 5000, 21000), owner: 'member', meta: { name: 'Pinewick ester', part: 'substrate', solvent: 'acetonitrile', synonyms: ['PW-ester'], tags: ['uv-c only', 'demo'], tripletEnergyKjPerMol: 238, visibility: 'group', notes: 'Absorbs only below about 290 nm: needs UV-C or a sensitiser.' } },
 	{ file: 'morrow-enone.csv', header: ε, y: (l) => bandLog(l, 364, 0.055, 9600) + bandE(l, 238, 5000, 12500), owner: 'member', meta: { name: 'Morrow enone', part: 'substrate', solvent: 'dichloromethane', synonyms: ['ME-3', 'Morrow cyclohexenone'], tags: ['[2+2]', 'uv-a', 'demo'], visibility: 'group' } },
 	{ file: 'calder-aryl-bromide.csv', header: A, y: (l) => bandE(l, 279, 4500, 0.64) + bandE(l, 224, 6000, 1.4), owner: 'lead', meta: { name: 'Calder aryl bromide', part: 'substrate', solvent: 'acetonitrile', concentrationM: 2e-4, pathCm: 1, tags: ['demo'], visibility: 'group' } },
 	{ file: 'dunmore-cinnamate.csv', header: ε, y: (l) => bandLog(l, 309, 0.07, 24500) + bandE(l, 218, 5000, 15000), owner: 'lead', meta: { name: 'Dunmore cinnamate', part: 'substrate', solvent: 'methanol', tags: ['e/z isomerisation', 'demo'], visibility: 'public' } },
