@@ -75,74 +75,88 @@ function runOnce() {
 
 // Timing: ROUNDS rounds, each RUNS_PER_ROUND JS runs then RUNS_PER_ROUND numpy runs, so both see the same
 // machine load (this machine is shared); the ratio is median(JS) / median(numpy) over all runs.
+// Each side is timed in a fresh process of its own: on these machines a process that has spawned a child
+// runs memory-heavy loops measurably slower afterwards, so the driver below never times JS itself.
 const ROUNDS = 3;
 const RUNS_PER_ROUND = 11;
-let result = runOnce();
-for (let r = 0; r < 5; r++) runOnce(); // warm-up (JIT)
-const jsCpu: number[] = [];
-function timeJs(runs: number): number[] {
-	const t: number[] = [];
-	for (let r = 0; r < runs; r++) {
+const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[xs.length >> 1];
+
+if (process.argv.includes('--js-worker')) {
+	// Warm-up: V8 needs a few dozen calls before the hot loops run optimised (tiering); numpy needs none.
+	for (let r = 0; r < 40; r++) runOnce();
+	const times: number[] = [];
+	const cpu: number[] = [];
+	let last = runOnce();
+	for (let r = 0; r < RUNS_PER_ROUND; r++) {
 		const c0 = process.cpuUsage();
 		const t0 = performance.now();
-		result = runOnce();
-		t.push(performance.now() - t0);
+		last = runOnce();
+		times.push(performance.now() - t0);
 		const c = process.cpuUsage(c0);
-		jsCpu.push((c.user + c.system) / 1000);
+		cpu.push((c.user + c.system) / 1000);
 	}
-	return t;
+	const top = last.top[0];
+	console.log(JSON.stringify({ times, cpu, topIndex: last.ranking.order[0], topFlux: top.absorbedPhotonFluxEinsteinPerS, sentence: top.sentence, selectivity: top.selectivity, count: last.ranking.order.length }));
+} else {
+	runDriver();
 }
-const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[xs.length >> 1];
-const best = result.top[0];
-console.log(`combinations: ${lamps.length} lamps × ${walls.length} walls × ${solvents.length} solvents = ${result.ranking.order.length}, grid ${n} points`);
-console.log(`best (JS): ${best.sentence}; q_abs,S = ${best.absorbedPhotonFluxEinsteinPerS.toExponential(6)} einstein/s, selectivity ${best.selectivity.toFixed(4)}`);
 
-// numpy comparison: hand the same inputs over as raw float64 rows.
-const dir = mkdtempSync(join(tmpdir(), 'window-bench-'));
-try {
-	const rows = [...eps, ...lamps.map((l) => l.photonFluxPerNm), ...walls.map((w) => w.transmission), ...solvents.map((s) => s.absorbancePerCm)];
-	const buf = new Float64Array(rows.length * n);
-	rows.forEach((r, k) => buf.set(r, k * n));
-	writeFileSync(join(dir, 'inputs.f64'), Buffer.from(buf.buffer));
-	const meta = { n, stepNm: grid.stepNm, pathCm: PATH_CM, conc, species: eps.length, lamps: lamps.length, walls: walls.length, solvents: solvents.length, runs: RUNS_PER_ROUND };
-	writeFileSync(join(dir, 'meta.json'), JSON.stringify(meta));
-	const script = join(dirname(fileURLToPath(import.meta.url)), 'window_numpy.py');
-	const jsTimes: number[] = [];
-	const npTimes: number[] = [];
-	let np: { times: number[]; cpu: number[]; topIndex: number; topFlux: number } | undefined;
-	const npCpu: number[] = [];
-	let skipped = '';
-	for (let round = 0; round < ROUNDS && !skipped; round++) {
-		jsTimes.push(...timeJs(RUNS_PER_ROUND));
-		const py = spawnSync('python3', [script, dir], { encoding: 'utf8' });
-		if (py.error || py.status !== 0) {
-			const why = py.error ? String(py.error.message) : (py.stderr || '').trim().split('\n').pop() ?? '';
-			skipped = /numpy/i.test(why) ? 'numpy is not installed for python3' : why;
-			break;
+interface Timing { times: number[]; cpu: number[]; topIndex: number; topFlux: number; sentence?: string; selectivity?: number; count?: number }
+
+function runDriver() {
+	const here = fileURLToPath(import.meta.url);
+	const dir = mkdtempSync(join(tmpdir(), 'window-bench-'));
+	try {
+		// numpy gets the same inputs as raw float64 rows.
+		const rows = [...eps, ...lamps.map((l) => l.photonFluxPerNm), ...walls.map((w) => w.transmission), ...solvents.map((s) => s.absorbancePerCm)];
+		const buf = new Float64Array(rows.length * n);
+		rows.forEach((r, k) => buf.set(r, k * n));
+		writeFileSync(join(dir, 'inputs.f64'), Buffer.from(buf.buffer));
+		const meta = { n, stepNm: grid.stepNm, pathCm: PATH_CM, conc, species: eps.length, lamps: lamps.length, walls: walls.length, solvents: solvents.length, runs: RUNS_PER_ROUND };
+		writeFileSync(join(dir, 'meta.json'), JSON.stringify(meta));
+		const script = join(dirname(here), 'window_numpy.py');
+		const js: Timing[] = [];
+		const np: Timing[] = [];
+		let skipped = '';
+		// Rounds alternate JS and numpy so both see the same machine load.
+		for (let round = 0; round < ROUNDS; round++) {
+			const w = spawnSync(process.execPath, ['--import', 'tsx', here, '--js-worker'], { encoding: 'utf8' });
+			if (w.status !== 0) throw new Error(`JS worker failed: ${w.stderr}`);
+			js.push(JSON.parse(w.stdout.trim().split('\n').pop() as string));
+			if (skipped) continue;
+			const py = spawnSync('python3', [script, dir], { encoding: 'utf8' });
+			if (py.error || py.status !== 0) {
+				const why = py.error ? String(py.error.message) : ((py.stderr || '').trim().split('\n').pop() ?? '');
+				skipped = /numpy/i.test(why) ? 'numpy is not installed for python3' : why || 'python3 failed';
+				continue;
+			}
+			np.push(JSON.parse(py.stdout.trim().split('\n').pop() as string));
 		}
-		np = JSON.parse(py.stdout.trim().split('\n').pop() as string);
-		npTimes.push(...np!.times);
-		npCpu.push(...np!.cpu);
-	}
-	if (!np || skipped) {
-		if (!jsTimes.length) jsTimes.push(...timeJs(RUNS_PER_ROUND * ROUNDS));
-		console.log(`JS median of ${jsTimes.length} runs: ${median(jsTimes).toFixed(2)} ms`);
-		console.log(`numpy comparison skipped: ${skipped || 'no result'}`);
-		console.log('ratio JS/numpy: n/a (numpy comparison skipped)');
-	} else {
+		const jsTimes = js.flatMap((t) => t.times);
 		const jsMs = median(jsTimes);
-		const npMs = median(npTimes);
+		const best = js[js.length - 1];
+		console.log(`combinations: ${lamps.length} lamps × ${walls.length} walls × ${solvents.length} solvents = ${best.count}, grid ${n} points`);
+		console.log(`best (JS): ${best.sentence}; q_abs,S = ${best.topFlux.toExponential(6)} einstein/s, selectivity ${best.selectivity?.toFixed(4)}`);
 		console.log(`JS median of ${jsTimes.length} runs: ${jsMs.toFixed(2)} ms`);
+		if (skipped || !np.length) {
+			console.log(`numpy comparison skipped: ${skipped || 'no result'}`);
+			console.log('ratio JS/numpy: n/a (numpy comparison skipped)');
+			return;
+		}
+		const npTimes = np.flatMap((t) => t.times);
+		const npMs = median(npTimes);
 		console.log(`numpy median of ${npTimes.length} runs: ${npMs.toFixed(2)} ms`);
-		// CPU time (all threads) is less sensitive to other load on a shared machine; shown for information
-		console.log(`CPU time medians: JS ${median(jsCpu).toFixed(2)} ms, numpy ${median(npCpu).toFixed(2)} ms (ratio ${(median(jsCpu) / median(npCpu)).toFixed(2)})`);
-		const jsTop = result.ranking.order[0];
-		const rel = Math.abs(np.topFlux - best.absorbedPhotonFluxEinsteinPerS) / best.absorbedPhotonFluxEinsteinPerS;
-		const same = np.topIndex === jsTop && rel < 1e-9;
-		console.log(`same top result: ${same ? 'yes' : 'NO'} (JS index ${jsTop}, numpy index ${np.topIndex}, relative flux difference ${rel.toExponential(2)})`);
+		// CPU time (all threads; numpy's BLAS may use both cores) is shown for information
+		const jsCpu = median(js.flatMap((t) => t.cpu));
+		const npCpu = median(np.flatMap((t) => t.cpu));
+		console.log(`CPU time medians: JS ${jsCpu.toFixed(2)} ms, numpy ${npCpu.toFixed(2)} ms (ratio ${(jsCpu / npCpu).toFixed(2)})`);
+		const top = np[np.length - 1];
+		const rel = Math.abs(top.topFlux - best.topFlux) / best.topFlux;
+		const same = top.topIndex === best.topIndex && rel < 1e-9;
+		console.log(`same top result: ${same ? 'yes' : 'NO'} (JS index ${best.topIndex}, numpy index ${top.topIndex}, relative flux difference ${rel.toExponential(2)})`);
 		if (!same) process.exitCode = 1;
 		console.log(`ratio JS/numpy: ${(jsMs / npMs).toFixed(2)}`);
+	} finally {
+		rmSync(dir, { recursive: true, force: true });
 	}
-} finally {
-	rmSync(dir, { recursive: true, force: true });
 }

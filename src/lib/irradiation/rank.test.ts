@@ -69,4 +69,17 @@ describe('rankCombinations', () => {
 		expect(r.order.length).toBe(6);
 		for (const i of r.order) expect(Math.floor(i / 2) % 2).toBe(0);
 	});
+
+	it('sorts many combinations exactly like a comparator would (flux, then selectivity, then index)', () => {
+		// 24 lamps (with exact duplicates and a lamp the walls block entirely), 6 walls, 12 solvents: ties and zeros
+		const lamps = Array.from({ length: 24 }, (_, k) => ({ id: `L${k}`, name: `L${k}`, photonFluxPerNm: k === 23 ? gauss(200, 5, 1e-7) : gauss(300 + (k % 12) * 15, 10 + (k % 3) * 5, 1e-7 * (1 + (k % 4))) }));
+		const walls = Array.from({ length: 6 }, (_, k) => ({ id: `W${k}`, name: `W${k}`, transmission: wl.map((x) => 0.9 / (1 + Math.exp(-(x - (230 + k * 20)) / 4))) }));
+		const solvents = Array.from({ length: 12 }, (_, k) => ({ id: `S${k}`, name: `S${k}`, absorbancePerCm: wl.map((x) => 10 ** ((190 + k * 12 - x) / 10)) }));
+		const big = { ...input, lamps, walls, solvents };
+		const r = rankCombinations(big);
+		const sel = (i: number) => (r.speciesFluxEinsteinPerS[i] > 0 ? r.substrateFluxEinsteinPerS[i] / r.speciesFluxEinsteinPerS[i] : 0);
+		const expected = Array.from(r.order).sort((x, y) => r.substrateFluxEinsteinPerS[y] - r.substrateFluxEinsteinPerS[x] || sel(y) - sel(x) || x - y);
+		expect(Array.from(r.order)).toEqual(expected);
+		expect(r.order.length).toBe(24 * 6 * 12);
+	});
 });

@@ -6,8 +6,8 @@
  *
  * Benchmarked hot path. Grid work is shared across combinations: per solvent the two absorbed-fraction
  * arrays f_S(λ) and f_species(λ) are computed once; per lamp × wall the product q·T·w_trapezoid is
- * computed once, on the lamp's support only; each combination is then two fused dot products, and
- * solvents that add nothing to A_tot (in double precision) over a pair's support share one result.
+ * computed once, on the lamp's support only, with prefix sums of its solvent-free integrals; each
+ * combination then adds one fused dot product over the stretch where its solvent absorbs at all.
  */
 import { absorbedFractionPerAbsorbance } from './innerFilter';
 import type { NumberArray } from './wavelengthGrid';
@@ -38,6 +38,11 @@ export interface RankOptions {
 	 * 1e-10 of the lamp's flux at the default 1e-12. Set 0 for the untrimmed integral.
 	 */
 	negligibleFraction?: number;
+	/**
+	 * Solvent absorbance over the path below which the solvent is treated as absent (default 1e-12: the absorbed
+	 * fractions then change by less than 2e-12 relative). Set 0 to include every solvent value.
+	 */
+	negligibleSolventAbsorbance?: number;
 }
 
 export interface Ranking {
@@ -91,28 +96,38 @@ export function rankCombinations(input: RankInput, options: RankOptions = {}): R
 
 	// Per solvent, interleaved: f[2i] = f_S(λ_i) = A_S·g, f[2i+1] = f_species(λ_i) = (A_S + A_others)·g,
 	// g = (1 − 10^(−A_tot))/A_tot, A_tot = A_S + A_others + A_solv (IUPAC 2007 inner-filter fraction).
-	// Only the union of the lamps' supports [uLo, uHi] is ever read. Slot S holds the solvent-free
-	// arrays. `changed` counts, per solvent, the grid points where adding the solvent changes A_tot at
-	// all in double precision: where it does not, f is bit-for-bit the solvent-free f, so a
-	// combination whose support has no such point reuses the solvent-free result (exact, not a tolerance).
-	const f = new Float64Array(2 * (S + 1) * n);
-	const changed = new Int32Array(S * (n + 1));
-	for (let s = 0; s <= S; s++) {
+	// Slot S holds the solvent-free arrays. A solvent only matters where its absorbance over the path
+	// reaches `negligibleSolventAbsorbance` (default 1e-12: below it f changes by < 2e-12 relative);
+	// [solvLo[s], solvHi[s]] is that range, and outside it the solvent-free f is used. Only the union of
+	// the lamps' supports [uLo, uHi] is ever read.
+	const tolSolv = options.negligibleSolventAbsorbance ?? 1e-12;
+	const f = scratch(0, 2 * (S + 1) * n);
+	const solvLo = new Int32Array(S), solvHi = new Int32Array(S);
+	for (let s = S; s >= 0; s--) {
 		const solv = s < S ? solvents[s].absorbancePerCm : null;
+		let a = uLo, b = uHi;
+		if (solv) {
+			while (a <= b && !(solv[a] * pathCm >= tolSolv)) a++;
+			while (b >= a && !(solv[b] * pathCm >= tolSolv)) b--;
+			solvLo[s] = a;
+			solvHi[s] = b;
+		}
 		const base = 2 * s * n;
-		for (let i = uLo; i <= uHi; i++) {
+		for (let i = a; i <= b; i++) {
 			const sp = aO ? aS[i] + aO[i] : aS[i];
 			const aTot = solv ? sp + solv[i] * pathCm : sp;
 			const g = absorbedFractionPerAbsorbance(aTot);
 			f[base + 2 * i] = aS[i] * g;
 			f[base + 2 * i + 1] = sp * g;
-			if (solv) changed[s * (n + 1) + i + 1] = changed[s * (n + 1) + i] + (aTot !== sp ? 1 : 0);
 		}
-		if (solv) for (let i = uHi + 1; i < n; i++) changed[s * (n + 1) + i + 1] = changed[s * (n + 1) + i];
 	}
 
-	const prod = new Float64Array(Math.max(total, 1));
-	let off = 0;
+	const prod = scratch(1, Math.max(total, 1));
+	// Prefix sums of the solvent-free integrands over each pair's support: cum[2(off + j)] = Σ_{i<j} p·f_S,0.
+	const cum = scratch(2, 2 * (total + L * W + 1));
+	const cumOff = new Int32Array(L * W);
+	let off = 0, coff = 0;
+	const f0 = 2 * S * n;
 	for (let l = 0; l < L; l++) {
 		const q = lamps[l].photonFluxPerNm;
 		const lo = lampLo[l], hi = lampHi[l];
@@ -131,53 +146,61 @@ export function rankCombinations(input: RankInput, options: RankOptions = {}): R
 			let a = lo, b = hi;
 			while (a <= b && !(prod[off + a - lo] > cut)) a++;
 			while (b >= a && !(prod[off + b - lo] > cut)) b--;
-			pairOff[k] = off + a - lo;
+			const po = off + a - lo, len = b - a + 1;
+			pairOff[k] = po;
 			pairLo[k] = a;
-			pairLen[k] = b - a + 1;
+			pairLen[k] = len;
+			cumOff[k] = coff;
+			let sA = 0, sB = 0;
+			cum[2 * coff] = 0;
+			cum[2 * coff + 1] = 0;
+			for (let j = 0; j < len; j++) {
+				const p = prod[po + j], x = f0 + 2 * (a + j);
+				sA += p * f[x];
+				sB += p * f[x + 1];
+				cum[2 * (coff + j + 1)] = sA;
+				cum[2 * (coff + j + 1) + 1] = sB;
+			}
+			coff += Math.max(len, 0) + 1;
 			off += hi - lo + 1;
 		}
 	}
 
-	// Every combination: two fused dot products over the pair's support.
+	// Every combination: the solvent-free integral over the pair's support, corrected by one fused dot
+	// product over the stretch where the solvent absorbs: Σ p·f_s − Σ p·f_0 on [from, to).
 	const nc = L * W * S;
 	const subs = new Float64Array(nc);
 	const spec = new Float64Array(nc);
 	const allowed = input.isAllowed;
 	const order = new Uint32Array(nc);
-	const full = new Int32Array(S); // solvents of the current pair that need their own dot products
 	let m = 0;
 	for (let l = 0; l < L; l++) {
 		for (let w = 0; w < W; w++) {
 			const k = l * W + w;
-			const po = pairOff[k], lo = pairLo[k], len = pairLen[k];
-			let baseA = -1, baseB = 0; // solvent-free result, computed when first needed
-			let nf = 0;
+			const po = pairOff[k], lo = pairLo[k], len = pairLen[k], co = cumOff[k];
+			if (len <= 0) {
+				for (let s = 0; s < S; s++) if (!allowed || allowed(l, w, s)) order[m++] = k * S + s;
+				continue;
+			}
+			const totA = cum[2 * (co + len)], totB = cum[2 * (co + len) + 1];
 			for (let s = 0; s < S; s++) {
 				const idx = k * S + s;
 				if (allowed && !allowed(l, w, s)) continue;
 				order[m++] = idx;
-				if (len <= 0) continue; // subs/spec stay 0
-				const c = s * (n + 1);
-				if (changed[c + lo + len] !== changed[c + lo]) {
-					full[nf++] = s;
+				const from = Math.max(lo, solvLo[s]);
+				const to = Math.min(lo + len, solvHi[s] + 1);
+				if (to <= from) {
+					subs[idx] = totA;
+					spec[idx] = totB;
 					continue;
 				}
-				if (baseA < 0) {
-					dotTwo(prod, po, f, 2 * (S * n + lo), 2 * (S * n + lo), len);
-					baseA = acc[0];
-					baseB = acc[1];
-				}
-				subs[idx] = baseA;
-				spec[idx] = baseB;
-			}
-			// two solvents per pass share the loads of the lamp × wall product
-			for (let j = 0; j < nf; j += 2) {
-				const s1 = full[j], s2 = j + 1 < nf ? full[j + 1] : full[j];
-				dotTwo(prod, po, f, 2 * (s1 * n + lo), 2 * (s2 * n + lo), len);
-				subs[k * S + s1] = acc[0];
-				spec[k * S + s1] = acc[1];
-				subs[k * S + s2] = acc[2];
-				spec[k * S + s2] = acc[3];
+				dotOne(prod, po + (from - lo), f, 2 * (s * n + from), to - from);
+				const j0 = from - lo, j1 = to - lo;
+				// rounding in the difference of prefix sums can leave −1e-30 where the true value is 0
+				const a = totA - (cum[2 * (co + j1)] - cum[2 * (co + j0)]) + acc[0];
+				const b = totB - (cum[2 * (co + j1) + 1] - cum[2 * (co + j0) + 1]) + acc[1];
+				subs[idx] = a > 0 ? a : 0;
+				spec[idx] = b > 0 ? b : 0;
 			}
 		}
 	}
@@ -187,37 +210,42 @@ export function rankCombinations(input: RankInput, options: RankOptions = {}): R
 }
 
 const acc = new Float64Array(4);
+
 /**
- * Two solvents at once: acc = (Σ p_j·f_2j, Σ p_j·f_2j+1) from `fo`, then the same from `go`, for j < len,
- * p from `po`. Unrolled by 2 with separate accumulators; results go to the shared `acc` buffer (no
- * allocation per call).
+ * Work buffers reused across calls (grown when a call needs more): the per-call arrays are megabytes, and
+ * fresh allocations cost page faults that can dominate the ranking itself. Only regions written in the
+ * current call are read, so stale contents never leak into a result.
  */
-function dotTwo(p: Float64Array, po: number, f: Float64Array, fo: number, go: number, len: number): void {
-	let a0 = 0, a1 = 0, b0 = 0, b1 = 0, c0 = 0, c1 = 0, d0 = 0, d1 = 0;
+const buffers: Float64Array[] = [];
+function scratch(slot: number, length: number): Float64Array {
+	if (!buffers[slot] || buffers[slot].length < length) buffers[slot] = new Float64Array(Math.ceil(length * 1.25));
+	return buffers[slot];
+}
+/** acc = (Σ p_j·f_2j, Σ p_j·f_2j+1) for j < len, p from `po`, f from `fo`; unrolled by 4, no allocation. */
+function dotOne(p: Float64Array, po: number, f: Float64Array, fo: number, len: number): void {
+	let a0 = 0, a1 = 0, a2 = 0, a3 = 0, b0 = 0, b1 = 0, b2 = 0, b3 = 0;
 	let j = 0;
-	for (; j + 1 < len; j += 2) {
-		const p0 = p[po + j], p1 = p[po + j + 1];
-		const x = fo + 2 * j, y = go + 2 * j;
-		a0 += p0 * f[x]; b0 += p0 * f[x + 1]; a1 += p1 * f[x + 2]; b1 += p1 * f[x + 3];
-		c0 += p0 * f[y]; d0 += p0 * f[y + 1]; c1 += p1 * f[y + 2]; d1 += p1 * f[y + 3];
+	for (; j + 3 < len; j += 4) {
+		const q = po + j, x = fo + 2 * j;
+		const p0 = p[q], p1 = p[q + 1], p2 = p[q + 2], p3 = p[q + 3];
+		a0 += p0 * f[x]; b0 += p0 * f[x + 1];
+		a1 += p1 * f[x + 2]; b1 += p1 * f[x + 3];
+		a2 += p2 * f[x + 4]; b2 += p2 * f[x + 5];
+		a3 += p3 * f[x + 6]; b3 += p3 * f[x + 7];
 	}
-	if (j < len) {
+	for (; j < len; j++) {
 		const p0 = p[po + j];
-		const x = fo + 2 * j, y = go + 2 * j;
-		a0 += p0 * f[x]; b0 += p0 * f[x + 1]; c0 += p0 * f[y]; d0 += p0 * f[y + 1];
+		a0 += p0 * f[fo + 2 * j]; b0 += p0 * f[fo + 2 * j + 1];
 	}
-	acc[0] = a0 + a1;
-	acc[1] = b0 + b1;
-	acc[2] = c0 + c1;
-	acc[3] = d0 + d1;
+	acc[0] = a0 + a1 + (a2 + a3);
+	acc[1] = b0 + b1 + (b2 + b3);
 }
 
 /**
  * Order `idx` by q_abs,S descending, ties by selectivity descending, then index ascending.
  * Non-negative doubles order like their IEEE-754 bit patterns read as unsigned integers, so a stable
- * LSD radix sort on the complemented bits (6 passes of 11/11/10 bits per 32-bit word) gives the
- * descending order in O(n) without a comparator; runs of equal flux are then fixed up with the
- * comparator. Any negative or NaN flux (invalid input upstream) falls back to the comparator sort.
+ * LSD radix sort on the complemented top 44 bits gives the descending order in O(n) without a
+ * comparator; runs that agree in those bits are then fixed up with the comparator. Any negative or NaN flux (invalid input upstream) falls back to the comparator sort.
  */
 function sortByFluxThenSelectivity(idx: Uint32Array, subs: Float64Array, spec: Float64Array): void {
 	const m = idx.length;
@@ -232,11 +260,12 @@ function sortByFluxThenSelectivity(idx: Uint32Array, subs: Float64Array, spec: F
 	const words = new Uint32Array(subs.buffer, subs.byteOffset, subs.length * 2); // little-endian: [lo, hi]
 	let src: Uint32Array = idx;
 	let dst: Uint32Array = new Uint32Array(m);
-	const count = new Int32Array(2048);
-	for (let pass = 0; pass < 6; pass++) {
-		const word = pass < 3 ? 0 : 1; // lo word first (least significant)
-		const shift = (pass % 3) * 11;
-		const mask = shift === 22 ? 0x3ff : 0x7ff;
+	const count = new Int32Array(4096);
+	// Four stable passes over the top 44 bits (lo word bits 20–31, then the hi word in 11/11/10 bits): values
+	// that agree in those bits differ by less than 2^-32 relative and are put in order by the fix-up below.
+	const WORD = [0, 1, 1, 1], SHIFT = [20, 0, 11, 22], MASK = [0xfff, 0x7ff, 0x7ff, 0x3ff];
+	for (let pass = 0; pass < 4; pass++) {
+		const word = WORD[pass], shift = SHIFT[pass], mask = MASK[pass];
 		count.fill(0);
 		for (let r = 0; r < m; r++) count[((~words[2 * src[r] + word]) >>> shift) & mask]++;
 		let sum = 0;
@@ -253,16 +282,18 @@ function sortByFluxThenSelectivity(idx: Uint32Array, subs: Float64Array, spec: F
 		src = dst;
 		dst = t;
 	}
-	// six passes: the sorted result is back in `idx`
-	// equal flux: the stable passes left ascending index; re-sort only runs whose selectivities differ
+	// four passes: the result is back in `idx`. Runs that agree in the top 44 bits keep ascending index order
+	// (stable passes); re-sort a run only when its full flux or its selectivity differs.
+	const full = (x: number, y: number) => subs[y] - subs[x] || byTie(x, y);
 	for (let r = 0; r < m; ) {
+		const hi = words[2 * idx[r] + 1], top = words[2 * idx[r]] >>> 20;
 		let e = r + 1;
-		let sameSpec = true;
-		while (e < m && subs[idx[e]] === subs[idx[r]]) {
-			if (spec[idx[e]] !== spec[idx[r]]) sameSpec = false;
+		let needed = false;
+		while (e < m && words[2 * idx[e] + 1] === hi && words[2 * idx[e]] >>> 20 === top) {
+			if (subs[idx[e]] !== subs[idx[r]] || (spec[idx[e]] !== spec[idx[r]] && subs[idx[r]] !== 0)) needed = true;
 			e++;
 		}
-		if (!sameSpec) idx.subarray(r, e).sort(byTie);
+		if (needed) idx.subarray(r, e).sort(full);
 		r = e;
 	}
 }
