@@ -1,4 +1,7 @@
-import { expect, test } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { expect, test, type APIRequestContext } from '@playwright/test';
+import { apiAs, baseURL } from './helpers/auth';
 
 test.describe('reference look-ups', () => {
 	test('a newcomer finds acetonitrile’s cut-off by typing "aceto", with its source', async ({ page }) => {
@@ -64,5 +67,56 @@ test.describe('reference API', () => {
 		expect((await request.get(`/api/materials/${tubing.id}/transmission?thicknessMm=abc`)).status()).toBe(400);
 		expect((await request.get(`/api/materials/${tubing.id}/transmission?thicknessMm=-2`)).status()).toBe(422);
 		expect((await request.get('/api/materials/999999/transmission')).status()).toBe(404);
+	});
+});
+
+test.describe('the group’s own wall and lamp from measured files', () => {
+	const external = (p: string) => readFileSync(path.resolve(process.cwd(), '../shared/external', p));
+	/** Uploads a file as the member (or finds it again when an earlier run stored it: 409 names it). */
+	async function upload(request: APIRequestContext, file: string, metadata: object): Promise<number> {
+		const r = await request.post('/api/spectra', {
+			multipart: { file: { name: path.basename(file), mimeType: 'text/plain', buffer: external(file) }, metadata: JSON.stringify(metadata) },
+			headers: { origin: baseURL() }
+		});
+		const body = await r.json();
+		if (r.status() === 409) return body.error.existingId;
+		expect(r.status(), JSON.stringify(body)).toBe(201);
+		return body.items[0].id;
+	}
+
+	test('a wall material from a measured %T curve scales with thickness (Beer–Lambert with Fresnel)', async ({ request }) => {
+		await apiAs(request, 'member');
+		// glass Petri dish %T, aphalo/photobiologyFilters (MANIFEST): %T(300) = 9.01, %T(365) = 89.21
+		const id = await upload(request, 'transmission/glass-petri-dish.csv', { kind: 'transmission', part: 'wall', visibility: 'group' });
+		const created = await request.post('/api/materials', { data: { name: `Petri dish glass ${Date.now()}`, spectrumId: id, thicknessMm: 1.5, refractiveIndex: 1.52 } });
+		expect(created.status()).toBe(201);
+		const m = await created.json();
+		const at = (c: { x: number[]; y: number[] }, nm: number) => c.y[c.x.indexOf(nm)];
+		const same = await (await request.get(`/api/materials/${m.id}/transmission?thicknessMm=1.5`)).json();
+		const double = await (await request.get(`/api/materials/${m.id}/transmission?thicknessMm=3`)).json();
+		// at its own thickness the measured curve comes back (MANIFEST: %T(300) = 9.01)
+		expect(at(same, 300)).toBeCloseTo(0.0901, 3);
+		// PRODUCT.md: T(d) = (1 − R)²·(T₀/(1 − R)²)^(d/d₀), R = ((n − 1)/(n + 1))², worked by hand for n = 1.52, d = 2·d₀
+		const fresnel = (1 - ((1.52 - 1) / (1.52 + 1)) ** 2) ** 2;
+		expect(at(double, 300)).toBeCloseTo(fresnel * (0.0901 / fresnel) ** 2, 4);
+		expect(at(double, 365)).toBeCloseTo(fresnel * (0.8921 / fresnel) ** 2, 3);
+		// a spectrum that is not a transmission spectrum is refused with the field named
+		const wrong = await request.post('/api/materials', { data: { name: 'not a wall', spectrumId: 1, thicknessMm: 1 } });
+		expect(wrong.status()).toBe(422);
+		expect((await wrong.json()).error.field).toBe('spectrumId');
+	});
+
+	test('a lamp from a measured emission spectrum peaks where the file does', async ({ request }) => {
+		await apiAs(request, 'member');
+		// LED 405 nm spectrometer export, aphalo/photobiologyLEDs (MANIFEST): peak 61870 counts at 408.32 nm
+		const id = await upload(request, 'emission/led-405nm-spectrometer-raw-counts.txt', { kind: 'emission', part: 'lamp', visibility: 'group' });
+		const r = await request.post('/api/lamps', { data: { name: `Measured 405 LED ${Date.now()}`, powerW: 0.5, model: { type: 'spectrum', spectrumId: id } } });
+		expect(r.status()).toBe(201);
+		const lamp = await r.json();
+		// the file's raw counts carry a baseline; the peak still sits at 408.3 nm (± one 0.5 nm grid step)
+		expect(Math.abs(lamp.peakNm - 408.32)).toBeLessThanOrEqual(0.5);
+		expect(lamp.photonFluxEinsteinPerS).toBeGreaterThan(0);
+		// MANIFEST: raw counts, no dark subtraction (median baseline 4525 of 61870 counts) — the lamp says so
+		expect(lamp.warnings.join(' ')).toMatch(/flat floor/);
 	});
 });

@@ -36,6 +36,19 @@ export async function resolveLampModel(model: LampModelInput, locals: App.Locals
 	return { type: 'measured', wavelengthNm: Array.from(x), power: Array.from(y, (v) => Math.max(0, v)) };
 }
 
+/**
+ * A warning when a measured emission spectrum sits on a flat floor (its lower quartile above 2 % of its peak):
+ * typical of raw detector counts without dark subtraction. The floor is counted as light, so say so.
+ */
+export function emissionFloorWarning(model: LampModel): string | null {
+	if (model.type !== 'measured' || model.power.length < 20) return null;
+	const sorted = [...model.power].sort((a, b) => a - b);
+	const max = sorted[sorted.length - 1];
+	const floor = sorted[Math.floor(sorted.length / 4)];
+	if (!(max > 0) || floor / max <= 0.02) return null;
+	return `The measured emission sits on a flat floor of about ${Math.round((100 * floor) / max)} % of its peak across ${Math.round(model.wavelengthNm[0])}–${Math.round(model.wavelengthNm[model.wavelengthNm.length - 1])} nm (raw detector counts without dark subtraction?). The floor is counted as light; subtract the dark spectrum before uploading for a true photon flux.`;
+}
+
 /** Optical power reaching the vessel, W. */
 export const vesselPowerW = (lamp: Pick<LampRow, 'powerW' | 'couplingFactor'>) => lamp.powerW * lamp.couplingFactor;
 

@@ -4,14 +4,16 @@ import { findLamp, insertLamp, listLamps, updateLampIfVersion, type LampRow } fr
 import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
 import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
-import { describeLamp, describeModel, resolveLampModel, vesselPowerW } from './lamps';
+import { describeLamp, describeModel, emissionFloorWarning, resolveLampModel, vesselPowerW } from './lamps';
 
 /** The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS). */
 export async function lampToApi(lamp: LampRow, locals: App.Locals) {
-	let derived: { peakNm: number | null; photonFluxEinsteinPerS: number | null; problem?: string } = { peakNm: null, photonFluxEinsteinPerS: null };
+	let derived: { peakNm: number | null; photonFluxEinsteinPerS: number | null; problem?: string; warnings: string[] } = { peakNm: null, photonFluxEinsteinPerS: null, warnings: [] };
 	try {
-		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp));
-		derived = { peakNm: d.peakNm, photonFluxEinsteinPerS: d.photonFluxEinsteinPerS };
+		const model = await resolveLampModel(lamp.model, locals);
+		const d = describeLamp(model, vesselPowerW(lamp));
+		const floor = emissionFloorWarning(model);
+		derived = { peakNm: d.peakNm, photonFluxEinsteinPerS: d.photonFluxEinsteinPerS, warnings: floor ? [floor] : [] };
 	} catch (e) {
 		derived.problem = e instanceof Error ? e.message : String(e);
 	}
