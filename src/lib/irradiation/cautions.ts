@@ -115,7 +115,7 @@ function lampTypeCautions(type: LampType | undefined, powerW: number): Caution[]
 }
 
 const RANK: Record<CautionSeverity, number> = { danger: 0, warning: 1, info: 2 };
-const DEFERRAL: Caution = { code: 'consult-safety-officer', severity: 'info', title: 'Local rules apply', text: SAFETY_DEFERRAL_TEXT, source: 'product rule' };
+const DEFERRAL: Caution = { code: 'consult-safety-officer', severity: 'info', title: 'Local rules apply', text: SAFETY_DEFERRAL_TEXT, source: 'Windowsill safety policy: local regulations and the institution’s safety officer decide' };
 
 function finish(list: Caution[]): Caution[] {
 	return [...list.filter((c) => c.code !== DEFERRAL.code)].sort((a, b) => RANK[a.severity] - RANK[b.severity]).concat(DEFERRAL);

@@ -6,6 +6,7 @@
  * time course (timeCourse.ts), ranking (rank.ts). Cautions come from another module: `cautions`
  * is left empty for the caller to fill.
  */
+import { nameInSentence } from './names';
 import { absorbedPhotonFlux, scaleAbsorbance, speciesAbsorbance } from './innerFilter';
 import { rankCombinations, rankedEntries, type RankedCombination, type RankLamp, type RankSolvent, type RankWall } from './rank';
 import { prepareKinetics, simulateTimeCourse } from './timeCourse';
@@ -183,7 +184,7 @@ export function computeWindow(input: ComputeWindowInput): WindowOutcome<WindowAn
 			timeTo90PctS: times ? finiteOrNull(times.timeTo90PctS) : null,
 			timeTo99PctS: times ? finiteOrNull(times.timeTo99PctS) : null,
 			timeCourse: times ? { timeS: Array.from(times.curve.timeS), conversion: Array.from(times.curve.conversion) } : null,
-			sentence: `the ${lamp.name}${wallName}: ${pct(fraction)} of its photons reach the substrate`
+			sentence: `the ${nameInSentence(lamp.name)}${wallName}: ${pct(fraction)} of its photons reach the substrate`
 		};
 	});
 	lamps.sort((x, y) => y.absorbedPhotonFluxEinsteinPerS - x.absorbedPhotonFluxEinsteinPerS || y.selectivity - x.selectivity);

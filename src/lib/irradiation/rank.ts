@@ -9,6 +9,7 @@
  * computed once, on the lamp's support only, with prefix sums of its solvent-free integrals; each
  * combination then adds one fused dot product over the stretch where its solvent absorbs at all.
  */
+import { nameInSentence } from './names';
 import { absorbedFractionPerAbsorbance } from './innerFilter';
 import type { NumberArray } from './wavelengthGrid';
 
@@ -336,7 +337,7 @@ export function rankedEntries(input: RankInput, ranking: Ranking, limit = 10): R
 			absorbedPhotonFluxEinsteinPerS: subs,
 			selectivity: spec > 0 ? subs / spec : 0,
 			fractionOfLampPhotonsToSubstrate: fraction,
-			sentence: `the ${lamp.name} through ${wall.name}${inSolvent}: ${Math.round(fraction * 100)} % of its photons reach the substrate`
+			sentence: `the ${nameInSentence(lamp.name)} through ${wall.name}${inSolvent}: ${Math.round(fraction * 100)} % of its photons reach the substrate`
 		});
 	}
 	return out;

@@ -107,11 +107,7 @@ export function simulateTimeCourse(k: PreparedKinetics, stepsPerSegment = 48): T
 	const nPts = 3 * stepsPerSegment + 1;
 	const timeS = new Float64Array(nPts);
 	const conversion = new Float64Array(nPts);
-	const dtdu = (u: number) => {
-		const x = -Math.expm1(-u);
-		const r = k.quantumYield * k.substrateAbsorbedFlux(x);
-		return r > 0 ? (k.amountMol * (1 - x)) / r : Infinity;
-	};
+	const dtdu = timePerLogUnit(k);
 	let t = 0;
 	let f0 = dtdu(0);
 	let p = 1;
@@ -138,15 +134,23 @@ export function simulateTimeCourse(k: PreparedKinetics, stepsPerSegment = 48): T
 	};
 }
 
-/** Time to reach `conversion` (0 ≤ X < 1), s: the same RK4 in u = −ln(1 − X) with `steps` fixed steps (default 64). */
-export function timeToConversionS(k: PreparedKinetics, conversion: number, steps = 64): number {
-	const uEnd = -Math.log1p(-conversion);
-	const h = uEnd / steps;
-	const dtdu = (u: number) => {
+/**
+ * dt/du in u = −ln(1 − X): dn_S/dt = −Φ·q_abs,S(X) with n_S = n₀(1 − X) gives dt/du = n₀(1 − X)/(Φ·q_abs,S(X)).
+ * Infinity where no photons reach the substrate.
+ */
+function timePerLogUnit(k: PreparedKinetics): (u: number) => number {
+	return (u) => {
 		const x = -Math.expm1(-u);
 		const r = k.quantumYield * k.substrateAbsorbedFlux(x);
 		return r > 0 ? (k.amountMol * (1 - x)) / r : Infinity;
 	};
+}
+
+/** Time to reach `conversion` (0 ≤ X < 1), s: the same RK4 in u = −ln(1 − X) with `steps` fixed steps (default 64). */
+export function timeToConversionS(k: PreparedKinetics, conversion: number, steps = 64): number {
+	const uEnd = -Math.log1p(-conversion);
+	const h = uEnd / steps;
+	const dtdu = timePerLogUnit(k);
 	let t = 0;
 	let f0 = dtdu(0);
 	for (let j = 0; j < steps; j++) {
