@@ -92,3 +92,31 @@ describe('inspectDelimited', () => {
 		expect(r.value.preamble).toEqual(['Run 3 of invented catalyst B']);
 	});
 });
+
+describe('instrument exports with one x/y pair per sample', () => {
+	it('pairs each y column with the wavelength column to its left and names it after the sample', () => {
+		// common practice: double-beam instrument software writes "Sample,,Sample," over "Wavelength (nm),Abs,…" pairs,
+		// samples of different lengths, and a method log after a blank line (invented values here)
+		const text = [
+			'Enone 1 mM,,Enone 2 mM,',
+			'Wavelength (nm),Abs,Wavelength (nm),Abs',
+			'400,0.10,400,0.20',
+			'399,0.11,399,0.22',
+			'398,0.12,398,0.24',
+			'397,0.13,397,0.26',
+			'396,0.14,396,0.28',
+			'395,0.15,,',
+			'394,0.16,,',
+			'',
+			'Method Log',
+			'Scan rate,600 nm/min'
+		].join('\r\n');
+		const r = parseDelimited(text);
+		expect(r.ok).toBe(true);
+		if (!r.ok) return;
+		expect(r.value.map((s) => s.label)).toEqual(['Enone 1 mM', 'Enone 2 mM']);
+		expect(r.value.map((s) => s.x.length)).toEqual([7, 5]);
+		expect(Array.from(r.value[1].y)).toEqual([0.2, 0.22, 0.24, 0.26, 0.28]);
+		expect(r.value.every((s) => s.kind === 'absorption' && s.xUnit === 'nm')).toBe(true);
+	});
+});

@@ -47,7 +47,7 @@ export function parseDelimited(text: string, options: DelimitedOptions = {}): Re
 		let yCols = cols.filter((c) => c.role === 'y');
 		for (const c of cols) if (c.role === 'skipped' && !options.columns?.includes(c.index)) warnings.push({ severity: 'warning', code: 'column_skipped', message: `column ${c.index + 1}: ${c.note}` });
 		if (options.columns) {
-			const bad = options.columns.find((i) => !Number.isInteger(i) || i < 0 || i >= t.nColumns || i === xCol.index);
+			const bad = options.columns.find((i) => !Number.isInteger(i) || i < 0 || i >= t.nColumns || cols[i].role === 'x');
 			if (bad !== undefined) return fail('column_out_of_range', `columns: ${bad} is not a y column (the file has columns 0–${t.nColumns - 1}, x is ${xCol.index})`);
 			yCols = options.columns.map((i) => cols[i]);
 		}
@@ -60,21 +60,25 @@ export function parseDelimited(text: string, options: DelimitedOptions = {}): Re
 			const x: number[] = [];
 			const y: number[] = [];
 			const lines: number[] = [];
-			const label = c.name || `column ${c.index + 1}`;
+			const xc = cols[c.xColumn ?? xCol.index] ?? xCol;
+			const paired = xc.index !== xCol.index || cols.some((o) => o.role === 'x' && o.index !== xCol.index);
+			const label = c.sample ?? (c.name || `column ${c.index + 1}`);
 			const what = `column ${c.index + 1}${c.name ? ` ("${c.name}")` : ''}`;
 			for (let i = first; i <= t.dataEnd; i++) {
 				const r = t.rows[i];
 				if (r.length === 0 || r.every((f) => f.trim() === '')) continue;
-				x.push(parseNumberField(r[xCol.index] ?? '', t.decimalComma));
+				// one x/y pair per sample: a shorter sample leaves its pair blank at the end
+				if (paired && (r[xc.index] ?? '').trim() === '' && (r[c.index] ?? '').trim() === '') continue;
+				x.push(parseNumberField(r[xc.index] ?? '', t.decimalComma));
 				y.push(parseNumberField(r[c.index] ?? '', t.decimalComma));
 				lines.push(i + 1);
 			}
-			const units = resolveUnits(x, y, options.xUnit ? undefined : (xCol.xUnit ?? pre.xUnit), c.guess, pre.kind, { kind: options.kind ?? pre.kind, xUnit: options.xUnit, yUnit: options.yUnit ?? pre.yUnit }, { what });
+			const units = resolveUnits(x, y, options.xUnit ? undefined : (xc.xUnit ?? xCol.xUnit ?? pre.xUnit), c.guess, pre.kind, { kind: options.kind ?? pre.kind, xUnit: options.xUnit, yUnit: options.yUnit ?? pre.yUnit }, { what });
 			const v = validatePoints({ x, y, lines, yUnit: units.yUnit, what });
 			issues.push(...v.issues);
 			if (!v.value) return;
 			warnings.push(...units.warnings);
-			spectra.push({ label, index: k, column: c.index, x: v.value.x, y: v.value.y, lines: v.value.lines, xUnit: units.xUnit, yUnit: units.yUnit, kind: units.kind, metadata: { ...pre.metadata }, xUnitLabel: xCol.name || undefined, yUnitLabel: c.name || undefined });
+			spectra.push({ label, index: k, column: c.index, x: v.value.x, y: v.value.y, lines: v.value.lines, xUnit: units.xUnit, yUnit: units.yUnit, kind: units.kind, metadata: { ...pre.metadata, ...(c.sample ? { title: c.sample } : {}) }, xUnitLabel: xc.name || undefined, yUnitLabel: c.name || undefined });
 		});
 		if (issues.some((i) => i.severity === 'error')) return { ok: false, issues };
 		if (!spectra.length) return fail('no_spectrum', 'no y column to import');

@@ -18,10 +18,15 @@ export interface ColumnGuess {
 	/** Why a column is skipped (e.g. a standard-deviation column). */
 	note?: string;
 	guess?: YUnitGuess;
+	/** y columns: the x column they pair with (instrument exports with one x/y pair per sample). */
+	xColumn?: number;
+	/** y columns: a sample name written above the pair's x column in the row before the header. */
+	sample?: string;
 }
 
 const Y_UNITS: YUnit[] = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'relative', 'W/nm', 'W/m2/nm', 'counts'];
 const X_NAME = /wave|lambda|λ|^nm$|\bnm\b|^wl|^x$|cm-1|1\/cm|µm|um\)/i;
+const X_AXIS = /^\s*(wave\s*length|wavelength|lambda|λ|wavenumber|nm|cm-1|1\/cm)\b/i;
 const SPECTROMETER = /integration time|spectrometer|pixels|dark spectrum|boxcar|spectra averaged/i;
 
 /** Hints from the preamble: `# key: value` lines (our CSV export), instrument headers, other header rows. */
@@ -57,17 +62,28 @@ export function readPreamble(t: DelimitedTable): { metadata: SpectrumFileMetadat
 	return { metadata, guess, kind, xUnit, yUnit };
 }
 
-/** Guesses the x column (a wavelength-like name, else column 0) and a role/unit for every column. */
+/**
+ * Guesses the x column (a wavelength-like name, else column 0) and a role/unit for every column. Exports that
+ * write one x/y pair per sample ("Wavelength (nm), Abs, Wavelength (nm), Abs" with the sample names in the row
+ * above) get every wavelength-like column as an x column; each y column pairs with the nearest x column to its
+ * left and takes the sample name written above that x column.
+ */
 export function guessColumns(t: DelimitedTable, fallback?: YUnitGuess): ColumnGuess[] {
 	const header = t.headerRow >= 0 ? t.rows[t.headerRow] : [];
 	const names = Array.from({ length: t.nColumns }, (_, i) => (header[i] ?? '').trim());
-	let xIndex = names.findIndex((n) => X_NAME.test(n));
-	if (xIndex < 0) xIndex = 0;
+	const xIndex = Math.max(0, names.findIndex((n) => X_NAME.test(n)));
+	// further x columns: only headers that name a wavelength axis outright and no y quantity
+	const xs = new Set([xIndex, ...names.map((n, i) => (i > xIndex && X_AXIS.test(n) && !parseYUnit(n) ? i : -1)).filter((i) => i >= 0)]);
+	const above = t.headerRow > 0 ? t.rows[t.headerRow - 1] : [];
+	const sampleOf = (x: number) => (xs.size > 1 ? (above[x] ?? '').trim() || undefined : undefined);
 	return names.map((name, index) => {
-		if (index === xIndex) return { index, name, role: 'x', xUnit: parseXUnit(name) };
+		if (xs.has(index)) return { index, name, role: 'x', xUnit: parseXUnit(name) };
 		const g = parseYUnit(name);
 		if (g?.notSpectrum) return { index, name, role: 'skipped', note: `"${name}" is not a spectrum (uncertainty column)` };
+		let pair = xIndex;
+		for (const x of xs) if (x < index && x > pair) pair = x;
+		if (pair > index) pair = xIndex;
 		const use = g ?? fallback;
-		return { index, name, role: 'y', yUnit: use?.yUnit, kind: use?.kind, guess: use };
+		return { index, name, role: 'y', yUnit: use?.yUnit, kind: use?.kind, guess: use, xColumn: pair, sample: sampleOf(pair) };
 	});
 }

@@ -74,3 +74,18 @@ describe('fuzz (fast-check)', () => {
 		);
 	});
 });
+
+describe('text encodings written by instrument software', () => {
+	it('reads UTF-16 (little-endian with a byte-order mark) tab-separated exports', () => {
+		// invented values; UTF-16 LE with BOM is what some Windows instrument software writes (common practice)
+		const text = '\uFEFFWavelength (nm)\tAbsorbance\r\n300\t0.1\r\n301\t0.2\r\n302\t0.3\r\n303\t0.2\r\n304\t0.1\r\n';
+		const bytes = new Uint8Array(text.length * 2);
+		for (let i = 0; i < text.length; i++) {
+			bytes[2 * i] = text.charCodeAt(i) & 0xff;
+			bytes[2 * i + 1] = text.charCodeAt(i) >> 8;
+		}
+		const r = parseSpectrumFile(bytes, 'utf16.txt');
+		expect(r.ok).toBe(true);
+		if (r.ok) expect(Array.from(r.value[0].y)).toEqual([0.1, 0.2, 0.3, 0.2, 0.1]);
+	});
+});

@@ -20,8 +20,20 @@ export interface ParseFileOptions {
 
 const unsupported = (message: string): Result<RawSpectrum[]> => ({ ok: false, issues: [{ severity: 'error', code: 'unsupported_format', message }] });
 
-/** Decodes bytes as UTF-8, falling back to windows-1252 (older instrument exports write µ, ° in it). */
+/**
+ * Decodes bytes as UTF-8, falling back to windows-1252 (older instrument exports write µ, ° in it). UTF-16 text
+ * (some Windows instrument software writes it) is recognised by its byte-order mark, or by every second byte
+ * being NUL in an ASCII-range file.
+ */
 export function decodeText(bytes: Uint8Array): string | undefined {
+	const utf16 = utf16Encoding(bytes);
+	if (utf16) {
+		try {
+			return new TextDecoder(utf16, { fatal: true }).decode(bytes).replace(/^\uFEFF/, '');
+		} catch {
+			return undefined;
+		}
+	}
 	let controls = 0;
 	for (let i = 0; i < bytes.length; i++) {
 		const b = bytes[i];
@@ -34,6 +46,22 @@ export function decodeText(bytes: Uint8Array): string | undefined {
 	} catch {
 		return new TextDecoder('windows-1252').decode(bytes);
 	}
+}
+
+/** 'utf-16le' / 'utf-16be' when the bytes are UTF-16 text, else undefined. */
+function utf16Encoding(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | undefined {
+	if (bytes.length >= 2 && bytes[0] === 0xff && bytes[1] === 0xfe) return 'utf-16le';
+	if (bytes.length >= 2 && bytes[0] === 0xfe && bytes[1] === 0xff) return 'utf-16be';
+	const n = Math.min(bytes.length - (bytes.length % 2), 512);
+	if (n < 8) return undefined;
+	let evenZero = 0, oddZero = 0;
+	for (let i = 0; i < n; i += 2) {
+		if (bytes[i] === 0) evenZero++;
+		if (bytes[i + 1] === 0) oddZero++;
+	}
+	if (oddZero === n / 2 && evenZero === 0) return 'utf-16le';
+	if (evenZero === n / 2 && oddZero === 0) return 'utf-16be';
+	return undefined;
 }
 
 /**
