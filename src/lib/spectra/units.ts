@@ -73,12 +73,14 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 		return { yUnit: 'epsilon', kind: 'absorption' };
 	if (/%t|percenttrans|transmittance%|transmission%|t%|%$/.test(s) && /t|%/.test(s))
 		return { yUnit: 'transmittance-percent', kind: 'transmission' };
-	if (/transm/.test(s)) return { yUnit: 'transmittance', kind: 'transmission', transmittanceScaleUnknown: true };
+	if (/transm|^trans\.?$/.test(s)) return { yUnit: 'transmittance', kind: 'transmission', transmittanceScaleUnknown: true };
 	if (/^a$|absorb|^abs|opticaldensity|^od$/.test(s)) return { yUnit: 'absorbance', kind: 'absorption' };
-	if (/w\/?m-?2\/?nm|wm-2nm-1|w\/m2|wm2|w\.m2|irradiance|extraterrestrial|global|direct/.test(s))
+	if (/w\/?m-?2\/?nm|wm-2nm-1|w\/m2|wm2|w\.m2|w\/cm2|w\/cm²|wcm-2|irradiance|extraterrestrial|global|direct/.test(s))
 		return { yUnit: 'W/m2/nm', kind: 'emission' };
 	if (/w\/nm|wnm-1|radiantflux|spectralpower/.test(s)) return { yUnit: 'W/nm', kind: 'emission' };
 	if (/counts|^cts|intensity\(counts\)/.test(s)) return { yUnit: 'counts', kind: 'emission' };
+	// photon units (µmol m⁻² s⁻¹ nm⁻¹ …) describe a light source; the shape is kept as relative emission
+	if (/mols-1|mol\/s|mol\/m2\/s|molm-2s-1|photon|quanta|einstein/.test(s)) return { yUnit: 'relative', kind: 'emission' };
 	if (/emission|fluoresc|luminesc|relativeintensity|intensity|spd|illuminant|daylight|incandescent|cie|\d{4}k/.test(s))
 		return { yUnit: 'relative', kind: 'emission' };
 	return undefined;
