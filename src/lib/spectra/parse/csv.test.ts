@@ -120,3 +120,11 @@ describe('instrument exports with one x/y pair per sample', () => {
 		expect(r.value.every((s) => s.kind === 'absorption' && s.xUnit === 'nm')).toBe(true);
 	});
 });
+
+describe('photon-energy axes', () => {
+	it('refuses an x column in eV with its line, instead of reading 1.5–4 as micrometres', () => {
+		const r = parseDelimited('Energy (eV),Abs\n2.0,0.1\n2.5,0.2\n3.0,0.4\n3.5,0.2\n4.0,0.1\n');
+		expect(r.ok).toBe(false);
+		if (!r.ok) expect(r.issues[0]).toMatchObject({ code: 'unsupported_x_unit', line: 1 });
+	});
+});

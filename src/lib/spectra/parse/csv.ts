@@ -43,6 +43,9 @@ export function parseDelimited(text: string, options: DelimitedOptions = {}): Re
 		const pre = readPreamble(t);
 		const cols = guessColumns(t, pre.guess);
 		const xCol = cols.find((c) => c.role === 'x')!;
+		// photon-energy axes would otherwise pass as µm (1.5–6 fits both): refuse rather than misplace the band
+		if (!options.xUnit && /(^|[^a-z])ev([^a-z]|$)|electron.?volt/i.test(xCol.name))
+			return fail('unsupported_x_unit', `column ${xCol.index + 1} ("${xCol.name}"): x in electronvolts is not read; export the spectrum against wavelength (nm) or wavenumber (cm⁻¹)`, t.headerRow + 1);
 		const warnings: ParseIssue[] = [];
 		let yCols = cols.filter((c) => c.role === 'y');
 		for (const c of cols) if (c.role === 'skipped' && !options.columns?.includes(c.index)) warnings.push({ severity: 'warning', code: 'column_skipped', message: `column ${c.index + 1}: ${c.note}` });
