@@ -125,7 +125,7 @@ start_server() {
     say "MariaDB (pid $pid) is starting; waiting"
   else
     if port_taken; then
-      die "port $PORT on 127.0.0.1 is taken by another program. Stop it or choose another port: DB_PORT=3317 npm start"
+      die "port $PORT on 127.0.0.1 is taken by another program. Stop it or choose another port, e.g. DB_PORT=$(( PORT + 10 )) npm start"
     fi
     rm -f "$PIDFILE" "$SOCKET"
     : > "$ERRLOG"
