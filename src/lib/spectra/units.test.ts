@@ -28,11 +28,12 @@ describe('unit names as instruments write them (MANIFEST files and common practi
 		['A', 'absorbance'], ['ABSORBANCE', 'absorbance'], ['%T', 'transmittance-percent'], ['Transmittance(%)', 'transmittance-percent'],
 		['TRANSMITTANCE', 'transmittance'], ['MOLAR ABSORPTIVITY (M-1 CM-1)', 'epsilon'], ['log ε', 'log-epsilon'],
 		['W m-2 nm-1', 'W/m2/nm'], ['counts', 'counts'], ['RELATIVE INTENSITY', 'relative'], ['Emission', 'relative'],
-		['µW/cm²/nm', 'W/m2/nm'], ['µmol m-2 s-1 nm-1', 'relative'], ['Trans.', 'transmittance'], ['OD', 'absorbance']
+		['µW/cm²/nm', 'relative'], ['mW/nm', 'relative'], ['W/nm', 'W/nm'], ['µmol m-2 s-1 nm-1', 'relative'], ['Trans.', 'transmittance'], ['OD', 'absorbance']
 	])('y %s → %s', (label, unit) => expect(parseYUnit(label)?.yUnit).toBe(unit));
 	it('VARIANCE and standard deviation are not spectra; ARBITRARY UNITS gives no hint', () => {
 		expect(parseYUnit('VARIANCE')?.notSpectrum).toBe(true);
 		expect(parseYUnit('Std.Dev.')?.notSpectrum).toBe(true);
 		expect(parseYUnit('ARBITRARY UNITS')).toBeUndefined();
+		expect(parseYUnit('R%')).toBeUndefined(); // reflectance must not be read as %T
 	});
 });

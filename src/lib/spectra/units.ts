@@ -71,11 +71,16 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 	if (/log.?(ε|epsilon|e\b|molarabs)|logε|logeps/.test(s)) return { yUnit: 'log-epsilon', kind: 'absorption' };
 	if (/ε|epsilon|molarabs|extinctioncoef|m-1cm-1|l\/mol|lmol-1cm-1|m\^-1cm\^-1/.test(s))
 		return { yUnit: 'epsilon', kind: 'absorption' };
+	// reflectance is not transmittance: no hint (the preview asks the user)
+	if (/^r%$|reflect/.test(s)) return undefined;
+	// power or irradiance with a metric prefix or per cm² (mW/nm, µW/cm²/nm): keep the shape as relative emission rather than
+	// store milli- or micro-watts under a watt label
+	if (/(^|[^a-z])(m|µ|μ|u|n)w(\/|cm|m2|m-2|nm)|w\/cm|wcm-2/.test(s)) return { yUnit: 'relative', kind: 'emission' };
 	if (/%t|percenttrans|transmittance%|transmission%|t%|%$/.test(s) && /t|%/.test(s))
 		return { yUnit: 'transmittance-percent', kind: 'transmission' };
 	if (/transm|^trans\.?$/.test(s)) return { yUnit: 'transmittance', kind: 'transmission', transmittanceScaleUnknown: true };
 	if (/^a$|absorb|^abs|opticaldensity|^od$/.test(s)) return { yUnit: 'absorbance', kind: 'absorption' };
-	if (/w\/?m-?2\/?nm|wm-2nm-1|w\/m2|wm2|w\.m2|w\/cm2|w\/cm²|wcm-2|irradiance|extraterrestrial|global|direct/.test(s))
+	if (/w\/?m-?2\/?nm|wm-2nm-1|w\/m2|wm2|w\.m2|irradiance|extraterrestrial|global|direct/.test(s))
 		return { yUnit: 'W/m2/nm', kind: 'emission' };
 	if (/w\/nm|wnm-1|radiantflux|spectralpower/.test(s)) return { yUnit: 'W/nm', kind: 'emission' };
 	if (/counts|^cts|intensity\(counts\)/.test(s)) return { yUnit: 'counts', kind: 'emission' };

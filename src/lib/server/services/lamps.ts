@@ -3,7 +3,7 @@
  * planner grid normalised to the optical power reaching the vessel (power × coupling factor), its photon flux
  * (CODATA 2018, REFERENCE.md §4), peak and the cautions for the bands it emits.
  */
-import { cautionsForLamp, spectralBandShares } from '$lib/irradiation/cautions';
+import { cautionsForSpectrum, spectralBandShares } from '$lib/irradiation/cautions';
 import {
 	CAUTION_GRID,
 	DEFAULT_LAMP_GRID,
@@ -62,7 +62,8 @@ export function describeLamp(model: LampModel, powerW: number, grid: SpectralGri
 		peakNm: peakWavelengthNm(spectrum),
 		photonFluxEinsteinPerS: totalPhotonFluxEinsteinPerS(spectrum),
 		bands: spectralBandShares(wide, 0.01),
-		cautions: cautionsForLamp(model, powerW)
+		// the wide grid keeps VUV lines (185 nm Hg, 172 nm Xe₂*) that decide the ozone caution
+		cautions: cautionsForSpectrum(wide, { lampType: model.type })
 	};
 }
 

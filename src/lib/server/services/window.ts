@@ -82,7 +82,7 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 		solvent: { id: solvent.solvent.id, name: solvent.solvent.name, cutoffNm: solvent.solvent.cutoffNm, basis: solvent.basis, source: solvent.solvent.source },
 		wall: { materialId: wall.material.id, name: wall.material.name, thicknessMm: req.wall.thicknessMm, source: wall.material.source },
 		ranking: await rankingFor(req, common, solvent, wall, groupIds, wallName),
-		flow: flowFor(req, substrate.epsilon, others, product, solvent.absorbancePerCm, wall.transmission, lamps[0]?.photonFluxPerNm, answer.lamps[0]?.id, lamps),
+		flow: flowFor(req, substrate.epsilon, others, product, solvent.absorbancePerCm, wall.transmission, answer.lamps[0]?.id, lamps),
 		sensitised: answer.windows.length ? null : await sensitisedFor(locals, caller, req, substrate, others, solvent.absorbancePerCm, wall.transmission),
 		curves: req.includeCurves ? curvesFor(substrate.epsilon, req, others, solvent.absorbancePerCm, wall.transmission, lamps) : undefined
 	};
@@ -115,7 +115,6 @@ function flowFor(
 	product: { epsilon: Float64Array; productPerSubstrate?: number } | undefined,
 	solvPerCm: Float64Array,
 	wallT: Float64Array,
-	_unused: unknown,
 	bestId: string | undefined,
 	lamps: { lamp: { id: number; name: string }; photonFluxPerNm: Float64Array }[]
 ) {
