@@ -105,8 +105,8 @@ export async function insertSpectrum(trx: Knex | Knex.Transaction, row: NewSpect
 }
 
 /** The rows of `groupId` that already hold this file (any block), deleted ones included. */
-export async function findSpectraBySha(trx: Knex | Knex.Transaction, groupId: number, sha256: string): Promise<Pick<SpectrumRow, 'id' | 'name' | 'block_index' | 'deleted_at'>[]> {
-	return trx('spectra').where({ group_id: groupId, file_sha256: sha256 }).select('id', 'name', 'block_index', 'deleted_at');
+export async function findSpectraBySha(trx: Knex | Knex.Transaction, groupId: number, sha256: string): Promise<Pick<SpectrumRow, 'id' | 'name' | 'block_index' | 'deleted_at' | 'visibility' | 'owner_id'>[]> {
+	return trx('spectra').where({ group_id: groupId, file_sha256: sha256 }).select('id', 'name', 'block_index', 'deleted_at', 'visibility', 'owner_id');
 }
 
 /** One full row (all BLOBs) with owner and group names, deleted or not; undefined when missing. */

@@ -97,6 +97,9 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 	const ids = await conn.transaction(async (trx) => {
 		const existing = await findSpectraBySha(trx, input.groupId, sha);
 		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
+		if (clash && clash.visibility === 'private' && clash.owner_id !== input.ownerId)
+			// Someone else's private spectrum: never name it or give its id.
+			throw new ApiError(409, 'duplicate', `${input.filename} is already stored in this group by another member who has not shared it; ask your group lead to have it shared with you`, { field: 'file' });
 		if (clash)
 			throw new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
 		const tagNames = cleanTags(input.meta.tags ?? []);
