@@ -111,9 +111,11 @@ function readBlock(lines: string[], b: JcampBlock, index: number, nBlocks: numbe
 		if (nm >= GRID_NM[0] && nm <= GRID_NM[1]) inside++;
 	}
 	if (inside < 2 && minNm <= maxNm) {
-		const stated = fileX || options.xUnit ? '' : ' (the file states no x unit; read as nm)';
-		const onAxis = units.xUnit === 'cm-1' ? `${num4(Math.min(...x))}–${num4(Math.max(...x))} cm⁻¹ = ` : '';
-		return { issues, refusal: { severity: 'error', code: 'outside_optical_range', message: `${what}: ${dt.name}, ${onAxis}${describeNmRange(minNm, maxNm)}: outside ${GRID_NM[0]}–${GRID_NM[1]} nm${stated}; not imported`, line: dataLine + 1, block } };
+		const lo = num4(Math.min(...x)), hi = num4(Math.max(...x));
+		const message = fileX || options.xUnit
+			? `${what}: ${dt.name}, ${units.xUnit === 'cm-1' ? `${lo}–${hi} cm⁻¹ = ` : ''}${describeNmRange(minNm, maxNm)}: outside ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`
+			: `${what}: ${dt.name} without an x unit (no ##XUNITS) whose x runs ${lo}–${hi}: in nm, µm or cm⁻¹ none of it lies within ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`;
+		return { issues, refusal: { severity: 'error', code: 'outside_optical_range', message, line: dataLine + 1, block } };
 	}
 	if (dt.infrared && !options.kind && units.xUnit !== 'cm-1')
 		issues.push({ severity: 'warning', code: 'data_type_mismatch', message: `${what}: the file says DATA TYPE=${dataType}; read as UV–vis ${units.kind}`, line: lineOf('DATATYPE'), block });

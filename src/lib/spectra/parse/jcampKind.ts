@@ -36,6 +36,9 @@ export function classifyDataType(dataType: string | undefined): DataTypeClass {
 /** "452–3794 cm⁻¹ (2.6–22 µm)", "233.8–275 nm": a range for messages, in µm above 1100 nm. */
 export function describeNmRange(minNm: number, maxNm: number): string {
 	const sig = (v: number, p: number) => String(Number(v.toPrecision(p)));
-	if (minNm >= 1100) return `${sig(minNm / 1000, 2)}–${sig(maxNm / 1000, 2)} µm`;
-	return `${sig(minNm, 4)}–${sig(maxNm, 4)} nm`;
+	for (let p = 2; p <= 6; p++) {
+		const [a, b] = minNm >= 1100 ? [sig(minNm / 1000, p), sig(maxNm / 1000, p)] : [sig(minNm, p + 2), sig(maxNm, p + 2)];
+		if (a !== b || p === 6) return minNm >= 1100 ? `${a}–${b} µm` : `${a}–${b} nm`;
+	}
+	return '';
 }

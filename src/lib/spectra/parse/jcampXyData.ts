@@ -91,12 +91,14 @@ export function readXyData(lines: string[], start: number, end: number, dataLine
 	if (h.lastX !== undefined && !exact && !near(x[n - 1], h.lastX, tol)) warn('lastx_mismatch', `LASTX says ${h.lastX}; the last decoded point is at ${x[n - 1]}`, d.lines[n - 1] + 1);
 	const yf = h.yFactor;
 	const ySpan = Math.max(...[d.y[0], d.y[n - 1]].map((v) => Math.abs(v * yf)), 1e-30);
-	const checkY = (label: string, said: number | undefined, got: number, line: number) => {
-		if (said !== undefined && Number.isFinite(got) && !near(said, got, 1e-3 * Math.max(Math.abs(said), ySpan) + 1e-12))
-			warn(`${label.toLowerCase()}_mismatch`, `${label} says ${said}; the data give ${got}`, line);
+	// FIRSTY/LASTY are real values, often printed with few digits: allow half a unit in their last printed place.
+	const checkY = (label: string, said: number | undefined, got: number, atX: number, line: number) => {
+		const decimals = (/\.(\d+)$/.exec(String(said)) ?? ['', ''])[1].length;
+		if (said !== undefined && Number.isFinite(got) && !near(said, got, 1e-3 * Math.max(Math.abs(said), ySpan) + 0.5 * 10 ** -decimals))
+			warn(`${label.toLowerCase()}_mismatch`, `${label} says ${said}; the data give ${Number(got.toPrecision(6))} (at x = ${Number(atX.toPrecision(8))}, line ${line})`, line);
 	};
-	checkY('FIRSTY', h.firstY, d.y[0] * yf, d.lines[0] + 1);
-	checkY('LASTY', h.lastY, d.y[n - 1] * yf, d.lines[n - 1] + 1);
+	checkY('FIRSTY', h.firstY, d.y[0] * yf, x[0], d.lines[0] + 1);
+	checkY('LASTY', h.lastY, d.y[n - 1] * yf, x[n - 1], d.lines[n - 1] + 1);
 	const missing = new Set(d.missing);
 	for (let i = 0; i < n; i++) {
 		if (missing.has(i)) continue;
