@@ -14,6 +14,7 @@ import { float64ToBuffer } from '../db/spectraBlobs';
 import { insertRevision } from '../db/spectrumRevisions';
 import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
+import { assertFiniteSpectra } from './spectraFinite';
 import { spectrumToApi } from './spectraView';
 
 export interface StoreInput {
@@ -93,6 +94,7 @@ export const sha256Hex = (bytes: Uint8Array) => createHash('sha256').update(byte
  * @throws ApiError 409 when the group already holds this file (names the existing spectrum)
  */
 export async function storeSpectra(conn: Knex, input: StoreInput) {
+	assertFiniteSpectra(input.spectra, input.filename);
 	const sha = sha256Hex(input.bytes);
 	const ids = await conn.transaction(async (trx) => {
 		const existing = await findSpectraBySha(trx, input.groupId, sha);
