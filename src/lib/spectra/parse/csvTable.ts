@@ -1,14 +1,16 @@
 /**
- * Finds the table inside delimited text: delimiter (',', ';' or tab, tried in turn and then passed to
- * papaparse explicitly), decimal separator, the data block (first run of ≥ 3 all-numeric rows with
- * ≥ 2 fields), the header row just above it, and the preamble (instrument headers, marker lines).
+ * Finds the table inside delimited text: delimiter (',', ';', tab, or any run of spaces/tabs — tried in turn,
+ * the first four passed to papaparse explicitly, whitespace split here with double quotes respected), decimal
+ * separator, the data block (first run of ≥ 3 all-numeric rows with ≥ 2 fields), the header row just above it,
+ * and the preamble (instrument headers, key–value blocks, marker lines).
  */
 import Papa from 'papaparse';
 import { parseNumberField, stripBom } from './numbers';
 
-export type Delimiter = ',' | ';' | '\t';
+export type Delimiter = ',' | ';' | '\t' | ' ';
 
 export interface DelimitedTable {
+	/** ' ' means "any run of spaces or tabs" (space-aligned instrument and model exports). */
 	delimiter: Delimiter;
 	decimalComma: boolean;
 	/** All rows; row i is line i + 1 of the original text. */
@@ -28,24 +30,49 @@ const trimRow = (r: string[]) => {
 	return n === r.length ? r : r.slice(0, n);
 };
 
-const isNumericRow = (r: string[], decimalComma: boolean) =>
+export const isNumericRow = (r: string[], decimalComma: boolean) =>
 	r.length >= 2 && r.every((f) => !Number.isNaN(parseNumberField(f, decimalComma)));
+
+const WHITESPACE_FIELD = /"((?:[^"]|"")*)"|(\S+)/g;
+
+/** Splits one line on runs of whitespace; "quoted fields" may contain spaces ("" is a literal quote). */
+export function splitWhitespace(line: string): string[] {
+	const out: string[] = [];
+	WHITESPACE_FIELD.lastIndex = 0;
+	let m: RegExpExecArray | null;
+	while ((m = WHITESPACE_FIELD.exec(line))) out.push(m[1] !== undefined ? m[1].replace(/""/g, '"') : m[2]);
+	return out;
+}
+
+function splitAll(clean: string, d: Delimiter): string[][] {
+	if (d === ' ') return clean.split('\n').map(splitWhitespace);
+	const parsed = Papa.parse<string[]>(clean, { delimiter: d, newline: '\n', skipEmptyLines: false, quoteChar: '"' });
+	return parsed.data.map((r) => trimRow(r.map(String)));
+}
 
 /** Returns the table, or undefined when no delimiter yields at least 3 numeric rows. */
 export function findTable(text: string): DelimitedTable | undefined {
 	const clean = stripBom(text).replace(/\r\n|\r/g, '\n');
-	let best: { d: Delimiter; dc: boolean; rows: string[][]; score: number } | undefined;
-	for (const d of [',', ';', '\t'] as Delimiter[]) {
-		const parsed = Papa.parse<string[]>(clean, { delimiter: d, newline: '\n', skipEmptyLines: false, quoteChar: '"' });
-		const rows = parsed.data.map((r) => trimRow(r.map(String)));
+	let best: { d: Delimiter; dc: boolean; score: number } | undefined;
+	// The delimiter is chosen on the first 600 lines (instrument preambles are shorter); then the whole text is split once.
+	let cut = -1;
+	for (let k = 0; k < 600; k++) {
+		cut = clean.indexOf('\n', cut + 1);
+		if (cut < 0) break;
+	}
+	const sample = cut < 0 ? clean : clean.slice(0, cut);
+	// Earlier delimiters win ties: a tab file splits the same on tabs and on whitespace.
+	for (const d of [',', ';', '\t', ' '] as Delimiter[]) {
+		const rows = splitAll(sample, d);
 		for (const dc of d === ',' ? [false] : [false, true]) {
 			let score = 0;
 			for (const r of rows) if (isNumericRow(r, dc)) score++;
-			if (score > (best?.score ?? 0)) best = { d, dc, rows, score };
+			if (score > (best?.score ?? 0)) best = { d, dc, score };
 		}
 	}
 	if (!best || best.score < 3) return undefined;
-	const { rows, dc } = best;
+	const { dc } = best;
+	const rows = splitAll(clean, best.d);
 	const n = rows.length;
 	let dataStart = -1;
 	// First numeric row followed closely by more: ≥ 3 of the 5 rows from it are numeric (a bad value
@@ -64,8 +91,13 @@ export function findTable(text: string): DelimitedTable | undefined {
 	let headerRow = -1;
 	for (let i = dataStart - 1; i >= 0; i--) {
 		if (rows[i].length === 0 || rows[i].every((f) => f.trim() === '')) continue;
-		if (rows[i].length >= 2) headerRow = i;
+		if (rows[i].length >= 2 && !isKeyValueOnly(rows[i], nColumns)) headerRow = i;
 		break;
 	}
 	return { delimiter: best.d, decimalComma: dc, rows, dataStart, dataEnd, headerRow, nColumns };
+}
+
+/** A two-field "KEY value" line above a wider table is a key–value line, not a header. */
+function isKeyValueOnly(r: string[], nColumns: number): boolean {
+	return nColumns > 2 && r.length === 2 && /^[A-Za-z]/.test(r[0].trim()) && r[1].trim() !== '';
 }
