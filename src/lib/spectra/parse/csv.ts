@@ -46,6 +46,20 @@ function collapse(w: ParseIssue[]): ParseIssue[] {
 	return out;
 }
 
+/** Errors only, the first three of each code, then one line counting the rest (72 columns, one message). */
+function collapseErrors(all: ParseIssue[]): ParseIssue[] {
+	const errors = all.filter((i) => i.severity === 'error');
+	const seen = new Map<string, number>();
+	const out: ParseIssue[] = [];
+	for (const i of errors) {
+		const n = (seen.get(i.code) ?? 0) + 1;
+		seen.set(i.code, n);
+		if (n <= 3) out.push(i);
+	}
+	for (const [code, n] of seen) if (n > 3) out.push({ severity: 'error', code, message: `…and ${n - 3} more with the same problem` });
+	return out;
+}
+
 /** y quantity from the file name's words, when nothing in the file states one. */
 function filenameHint(name: string | undefined): HeaderYUnit | undefined {
 	if (!name) return undefined;
@@ -241,7 +255,7 @@ function readColumns(plan: DelimitedPlan, options: DelimitedOptions): Result<Raw
 		if (c.sample) s.metadata.title = c.sample;
 		spectra.push(s);
 	});
-	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues };
+	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues: collapseErrors(issues) };
 	if (!spectra.length) return fail('no_spectrum', 'no y column to import');
 	return { ok: true, value: spectra, warnings: collapse([...warnings, ...issues]) };
 }
@@ -282,7 +296,7 @@ function readRows(plan: DelimitedPlan, options: DelimitedOptions): Result<RawSpe
 		s.blockLabel = cell;
 		spectra.push(s);
 	}
-	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues };
+	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues: collapseErrors(issues) };
 	if (!spectra.length) return fail('no_spectrum', 'no row to import');
 	const lead: ParseIssue[] = [{ severity: 'warning', code: 'layout_rows', message: `read as ${spectra.length} spectra, one per row (${layout.reason})` }];
 	if (assumedTime) lead.push({ severity: 'warning', code: 'time_unit_assumed', message: 'the first column names no time unit; row labels read as seconds — please confirm' });

@@ -66,7 +66,7 @@ export function readPreamble(t: DelimitedTable): Preamble {
 		if (!line) continue;
 		let key: string | undefined;
 		let value: string | undefined;
-		const kv = /^([A-Za-z][\w ./-]{0,40}?)\s*[:=]\s*(.*)$/.exec(line);
+		const kv = /^([A-Za-z][\w ./-]{0,40}?)(?:\s*[:=]\s*|\t+)(.*)$/.exec(line);
 		if (kv) [key, value] = [kv[1], kv[2]];
 		else if (t.delimiter !== ' ' && fields.length >= 2 && /^[A-Za-z#]/.test(fields[0].trim())) [key, value] = [fields[0], fields.slice(1).join(' ')];
 		else if (t.delimiter === ' ' && /^[A-Z][A-Z /_-]{1,40}$/.test(fields[0] ?? '') && fields.length === 2) [key, value] = [fields[0], fields[1]];

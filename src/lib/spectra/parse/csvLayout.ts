@@ -76,6 +76,7 @@ export function chooseLayout(t: DelimitedTable, forced?: CsvLayout): LayoutChoic
 	const rows = (reason: string): LayoutChoice => ({ layout: 'rows', reason, xUnit: rowsAxis ?? cornerUnit ?? 'nm', timeUnitS: timeUnit ?? 1, timeAssumed: timeUnit === undefined });
 	if (forced === 'rows') return rows('one spectrum per row, as chosen');
 	if (forced === 'columns') return { layout: 'columns', reason: 'one spectrum per column, as chosen' };
+	if (t.labelledRows && nums) return rows(`one spectrum per row: the header row holds ${nums.length} wavelengths and each row starts with its label`);
 	if (!rowsAxis || !nums) return { layout: 'columns', reason: 'one spectrum per column: the first column is the axis' };
 	const cornerIsAxis = corner !== '' && isAxisName(corner) && !cornerTime;
 	if (cornerTime) return rows(`one spectrum per row: the header row holds ${nums.length} wavelengths and the first column is a time ("${corner}")`);
