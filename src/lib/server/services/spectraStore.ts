@@ -27,7 +27,7 @@ export interface StoreInput {
 	warnings: ParseIssue[];
 }
 
-const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp' } as const;
+const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp', reflectance: 'photocatalyst' } as const;
 
 /** The name of the i-th spectrum of a file: metadata.names[i], metadata.name, the block/column title, the file name. */
 function nameFor(input: StoreInput, s: PreparedSpectrum, i: number): string {
@@ -73,6 +73,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		file_sha256: sha256,
 		block_index: s.blockIndex,
 		block_label: s.raw.label.slice(0, 200),
+		...(s.raw.timeS !== undefined ? { block_time_s: s.raw.timeS } : {}),
 		search_vector: Buffer.from(vectorToBuffer(s.derived.searchVector)),
 		lambda_max_nm: s.derived.lambdaMaxNm,
 		value_at_max: s.derived.valueAtMax,
