@@ -15,6 +15,7 @@ import { insertRevision } from '../db/spectrumRevisions';
 import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
 import { spectrumToApi } from './spectraView';
+import { derivedColumns } from './spectraDerive';
 
 export interface StoreInput {
 	groupId: number;
@@ -79,6 +80,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		cutoff10_nm: s.derived.cutoff10Nm,
 		cutoff50_nm: s.derived.cutoff50Nm,
 		peaks: JSON.stringify(s.derived.peaks),
+		...derivedColumns(s.derived),
 		triplet_energy_kj_per_mol: m.tripletEnergyKjPerMol ?? null,
 		excited_state_potentials: JSON.stringify(m.excitedStatePotentials ?? []),
 		warnings: JSON.stringify(warnings.filter((w) => w.block === undefined || w.block === s.raw.index).map(({ code, message, line }) => ({ code, message, line })))
