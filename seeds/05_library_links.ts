@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
-import { derivedColumns, deriveForLibrary } from '../src/lib/server/services/spectraDerive';
+import { DERIVE_VERSION, derivedColumns, deriveForLibrary } from '../src/lib/server/services/spectraDerive';
 import { bufferToFloat64 } from '../src/lib/server/db/spectraBlobs';
 import { vectorToBuffer } from '../src/lib/spectra/grid';
 import type { NormalisedSpectrum } from '../src/lib/spectra/types';
 
 /**
- * 1. (all modes) Spectra stored before the longest-band / excluded-stretch derivation existed (`derived_extra` null)
- *    are re-derived from their stored normalised points, so λmax, peaks, the longest band and the similarity stretch
+ * 1. (all modes) Spectra derived with older rules (`derived_extra` null, or an older `deriveVersion`) are re-derived
+ *    from their stored normalised points, so λmax, peaks, the longest band and the similarity stretch
  *    follow the same rules for every row. Rows are read in batches; idempotent (a re-derived row is skipped next time).
  * 2. (demo mode) The demo group's three measured neat-solvent spectra are linked to their solvents (acetonitrile,
  *    dichloromethane, acetone) unless a lead already linked something else.
@@ -22,7 +22,9 @@ const demoMode = () => process.env.NODE_ENV !== 'production' || process.env.WIND
 async function rederiveOldRows(knex: Knex): Promise<number> {
 	let done = 0;
 	for (;;) {
-		const rows = await knex('spectra').whereNull('derived_extra').select('id', 'kind', 'x_nm', 'y_normalised', 'y_unit', 'concentration_m', 'path_cm').limit(50);
+		const rows = await knex('spectra')
+			.whereRaw("derived_extra IS NULL OR COALESCE(JSON_VALUE(derived_extra, '$.deriveVersion'), 0) < ?", [DERIVE_VERSION])
+			.select('id', 'kind', 'x_nm', 'y_normalised', 'y_unit', 'concentration_m', 'path_cm').limit(50);
 		if (!rows.length) return done;
 		for (const r of rows) {
 			const spec: NormalisedSpectrum = { kind: r.kind, x: bufferToFloat64(r.x_nm), y: bufferToFloat64(r.y_normalised), yUnit: r.y_unit };

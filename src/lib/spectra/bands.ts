@@ -75,7 +75,7 @@ export interface BandOptions {
 	noiseSigma?: number;
 	/** Least prominence in multiples of the noise σ (default 8). */
 	noiseFactor?: number;
-	/** Least prominence as a fraction of the largest usable value (default 0.001: an n→π* band of ε 20 beside a π→π* band of ε 20 000 still counts). */
+	/** Least prominence as a fraction of the largest usable value (default 0.0002: a d–d band of ε 10 beside a charge-transfer band of ε 20 000 still counts when the noise allows). */
 	minRelativeProminence?: number;
 	/**
 	 * Least width at half prominence, nm (default 1). Besides, a band must span at least 3 samples above half its
@@ -133,7 +133,7 @@ export function findBandMaxima(x: ArrayLike<number>, y: ArrayLike<number>, optio
 		if (!bad(i) && y[i] > maxUsable) maxUsable = y[i];
 	}
 	if (!(maxUsable > 0)) return [];
-	const least = Math.max((options.noiseFactor ?? 8) * (options.noiseSigma ?? 0), (options.minRelativeProminence ?? 0.001) * maxUsable);
+	const least = Math.max((options.noiseFactor ?? 8) * (options.noiseSigma ?? 0), (options.minRelativeProminence ?? 0.0002) * maxUsable);
 	const out: BandMaximum[] = [];
 	// valley on one side: the lowest smoothed value before a higher one, an excluded sample or the end
 	const valley = (i: number, dir: 1 | -1) => {
@@ -165,7 +165,10 @@ export function findBandMaxima(x: ArrayLike<number>, y: ArrayLike<number>, optio
 			// the top inside the stretch: a clear interior maximum (≥ 2 % above both ends of the stretch), else its middle
 			let top = i;
 			for (let k = i; k <= j; k++) if (y[k] > y[top]) top = k;
-			const clear = top > i && top < j && y[top] >= 1.02 * Math.max(y[i], y[j]);
+			// (a flat instrument ceiling has no clear top: many samples sit at the same largest value)
+			let nearTop = 0;
+			for (let k = i; k <= j; k++) if (y[k] >= 0.995 * y[top]) nearTop++;
+			const clear = top > i && top < j && y[top] >= 1.02 * Math.max(y[i], y[j]) && nearTop <= Math.max(2, 0.3 * (j - i + 1));
 			if ((usableWithin(i - 5 * h, i - 1) && usableWithin(j + 1, j + 5 * h)) || clear) {
 				const at = clear ? top : (i + j) >> 1;
 				out.push({ wavelengthNm: x[at], value: y[at], prominence: NaN, saturated: true });

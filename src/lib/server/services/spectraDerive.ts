@@ -47,15 +47,14 @@ export function deriveForLibrary(spec: NormalisedSpectrum, options: LibraryDeriv
 		for (const note of Object.values(derived.cutoffNotes ?? {})) if (note) warnings.push({ severity: 'warning', code: 'cutoff_outside_data', message: `cut-off ${note}` });
 		return { derived, warnings };
 	}
-	const fromNm = spec.kind === 'absorption' ? noisyLeadingEndNm(spec.x, spec.y) : undefined;
-	const derived = deriveSpectrum(spec, fromNm === undefined ? common : { ...common, range: { fromNm } });
-	if (fromNm !== undefined)
-		warnings.push({ severity: 'warning', code: 'noisy_short_end', message: `the data below ${fromNm} nm are noise (solvent or cell cut-off); λmax and peaks were searched above ${fromNm} nm` });
+	// noise at the short end (solvent or cell cut-off) is one of the excluded stretches of the core
+	const fromNm: number | undefined = undefined;
+	const derived = deriveSpectrum(spec, common);
 	for (const e of derived.excluded ?? []) {
 		if (e.reason === 'saturated')
 			warnings.push({ severity: 'warning', code: 'saturated', message: `${fmt(e.fromNm)}–${fmt(e.toNm)} nm: absorbance above the linear range (${options.linearLimitAbsorbance ?? 2.5}); left out of λmax, peaks and similarity` });
-		else if (fromNm === undefined || e.toNm > fromNm)
-			warnings.push({ severity: 'warning', code: 'noisy_stretch', message: `${fmt(e.fromNm)}–${fmt(e.toNm)} nm: noise-dominated; left out of λmax, peaks and similarity` });
+		else
+			warnings.push({ severity: 'warning', code: e.fromNm === spec.x[0] ? 'noisy_short_end' : 'noisy_stretch', message: `${fmt(e.fromNm)}–${fmt(e.toNm)} nm: noise-dominated (a solvent or cell cut-off, or the end of the detector's range); left out of λmax, peaks and similarity` });
 	}
 	const { x } = spec;
 	const n = x.length;
@@ -90,8 +89,12 @@ function usableEndsNm(x: ArrayLike<number>, excluded: { fromNm: number; toNm: nu
 	return a < 0 ? null : [x[a], x[b]];
 }
 
+/** Version of the derivation rules; rows derived with an older one are re-derived by seeds/05_library_links.ts. */
+export const DERIVE_VERSION = 2;
+
 /** What the `derived_extra` JSON column holds (besides the `longest_band_nm` column). */
 export interface DerivedExtra {
+	deriveVersion: number;
 	longestBandValue: number | null;
 	longestBandSaturated: boolean;
 	excluded: { fromNm: number; toNm: number; reason: 'saturated' | 'noise' }[];
@@ -103,6 +106,7 @@ export interface DerivedExtra {
 /** The columns of `spectra` that hold the derived values added after the first release (longest band, stretches). */
 export function derivedColumns(d: SpectrumDerived): { longest_band_nm: number | null; derived_extra: string } {
 	const extra: DerivedExtra = {
+		deriveVersion: DERIVE_VERSION,
 		longestBandValue: d.longestBandValue ?? null,
 		longestBandSaturated: d.longestBandSaturated ?? false,
 		excluded: d.excluded ?? [],
