@@ -137,5 +137,8 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'window finder page', method: 'GET', path: '/window', kind: 'page', expect: all(303, 200) },
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
-	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) }
+	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- library (solvent links) ----
+	{ name: 'one solvent', method: 'GET', path: '/api/solvents/1', kind: 'api', expect: all(200, 200) },
+	{ name: 'link solvent spectrum over the API, unknown spectrum', method: 'PATCH', path: '/api/solvents/1', kind: 'api', json: { spectrumId: 999999999 }, expect: { anonymous: 401, viewer: 403, member: 403, lead: 400, outsider: 403, admin: 400 } }
 ];

@@ -100,6 +100,20 @@ export interface SpectrumDerived {
 	cutoff10Nm: number | null;
 	cutoff50Nm: number | null;
 	peaks: { wavelengthNm: number; value: number }[];
+	/** absorption: the longest-wavelength band maximum above noise (the band one irradiates), nm; its y value; whether its top is saturated. */
+	longestBandNm?: number | null;
+	longestBandValue?: number | null;
+	longestBandSaturated?: boolean;
+	/** absorption: every band maximum above noise, ascending λ (saturated tops flagged). */
+	bands?: { wavelengthNm: number; value: number; saturated: boolean }[];
+	/** transmission: why a cut-off is null ("below the data range, T(300 nm) = 81 %"). */
+	cutoffNotes?: { cutoff10?: string; cutoff50?: string };
+	/** Saturated (A above the linear range) and noise-dominated stretches, left out of λmax, peaks and bands. */
+	excluded?: { fromNm: number; toNm: number; reason: 'saturated' | 'noise' }[];
+	/** Robust noise σ of y. */
+	noiseSigma?: number;
+	/** Stretches of the 1 nm grid that shape similarity may use ([fromNm, toNm] inclusive). */
+	similarity?: { usable: [number, number][]; aboveNoise: [number, number][] };
 	/** 1 nm vector on 190..1100 nm (911 values), NaN outside the measured range replaced by 0; see grid.ts. */
 	searchVector: Float32Array;
 }

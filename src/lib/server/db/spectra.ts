@@ -48,6 +48,10 @@ export interface SpectrumRow {
 	triplet_energy_kj_per_mol: number | null;
 	excited_state_potentials: string | null;
 	warnings: string | null;
+	/** longest-wavelength band maximum above noise, nm (absorption) */
+	longest_band_nm: number | null;
+	/** JSON DerivedExtra (services/spectraDerive.ts): stretches left out, noise σ, cut-off notes, similarity stretch */
+	derived_extra: string | null;
 	version: number;
 	deleted_at: Date | null;
 	created_at: Date;
@@ -66,7 +70,7 @@ export const SUMMARY_COLUMNS = [
 	's.path_cm', 's.thickness_mm', 's.temperature_c', 's.instrument', 's.notes', 's.visibility', 's.x_unit_original',
 	's.y_unit_original', 's.y_unit', 's.point_count', 's.file_name', 's.file_sha256', 's.block_index', 's.block_label', 's.block_time_s',
 	's.lambda_max_nm', 's.value_at_max', 's.edge_nm', 's.cutoff10_nm', 's.cutoff50_nm', 's.peaks', 's.triplet_energy_kj_per_mol',
-	's.excited_state_potentials', 's.warnings', 's.version', 's.deleted_at', 's.created_at', 's.updated_at',
+	's.excited_state_potentials', 's.warnings', 's.longest_band_nm', 's.derived_extra', 's.version', 's.deleted_at', 's.created_at', 's.updated_at',
 	'u.name as owner_name', 'g.name as group_name', 'g.slug as group_slug'
 ];
 

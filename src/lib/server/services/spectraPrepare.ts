@@ -86,7 +86,7 @@ export function prepareSpectra(bytes: Uint8Array, filename: string, meta: Upload
 	for (const raw of parsed.value) {
 		const norm = normaliseSpectrum(raw);
 		if (!norm.ok) throw issuesToApiError(filename, norm.issues.map((i) => ({ ...i, block: i.block ?? raw.index })));
-		const d = deriveForLibrary(norm.value);
+		const d = deriveForLibrary(norm.value, { concentrationM: meta.concentrationM ?? raw.metadata.concentrationM, pathCm: meta.pathCm ?? raw.metadata.pathCm });
 		const label = parsed.value.length > 1 ? `${raw.label}: ` : '';
 		warnings.push(...norm.warnings.map((w) => ({ ...w, message: label + w.message })), ...d.warnings.map((w) => ({ ...w, message: label + w.message, block: raw.index })));
 		spectra.push({ raw, norm: norm.value, derived: d.derived, blockIndex: raw.column ?? raw.index });

@@ -16,6 +16,7 @@ import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db
 import type { PreparedSpectrum } from './spectraPrepare';
 import { assertFiniteSpectra } from './spectraFinite';
 import { spectrumToApi } from './spectraView';
+import { derivedColumns } from './spectraDerive';
 
 export interface StoreInput {
 	groupId: number;
@@ -81,6 +82,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		cutoff10_nm: s.derived.cutoff10Nm,
 		cutoff50_nm: s.derived.cutoff50Nm,
 		peaks: JSON.stringify(s.derived.peaks),
+		...derivedColumns(s.derived),
 		triplet_energy_kj_per_mol: m.tripletEnergyKjPerMol ?? null,
 		excited_state_potentials: JSON.stringify(m.excitedStatePotentials ?? []),
 		warnings: JSON.stringify(warnings.filter((w) => w.block === undefined || w.block === s.raw.index).map(({ code, message, line }) => ({ code, message, line })))

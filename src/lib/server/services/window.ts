@@ -79,7 +79,7 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 		explanation: answer.explanation,
 		cautions: mergeCautions(...lamps.map((l) => l.cautions)),
 		substrate: { id: substrate.row.id, name: substrate.row.name, concentrationM: req.substrate.concentrationM },
-		solvent: { id: solvent.solvent.id, name: solvent.solvent.name, cutoffNm: solvent.solvent.cutoffNm, basis: solvent.basis, source: solvent.solvent.source },
+		solvent: { id: solvent.solvent.id, name: solvent.solvent.name, cutoffNm: solvent.solvent.cutoffNm, basis: solvent.basis, spectrumId: solvent.spectrumId, spectrumName: solvent.spectrumName, note: solvent.basisNote, source: solvent.solvent.source },
 		wall: { materialId: wall.material.id, name: wall.material.name, thicknessMm: req.wall.thicknessMm, source: wall.material.source },
 		ranking: await rankingFor(req, common, solvent, wall, groupIds, wallName),
 		flow: flowFor(req, substrate.epsilon, others, product, solvent.absorbancePerCm, wall.transmission, answer.lamps[0]?.id, lamps),
