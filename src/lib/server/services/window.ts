@@ -4,7 +4,8 @@
  */
 import { computeWindow, computeWindowRanking, type OtherSpecies } from '$lib/irradiation/computeWindow';
 import { computeFlow } from '$lib/irradiation/flow';
-import { mergeCautions } from '$lib/irradiation/cautions';
+import { cautionsPerLamp } from '$lib/irradiation/cautions';
+import { calibrationNote } from './lampCalibrations';
 import { speciesAbsorbance } from '$lib/irradiation/innerFilter';
 import { suggestPhotocatalysts, type CatalystCandidate } from '$lib/irradiation/sensitised';
 import { windowPhysicsIssues, windowRequestSchema, type WindowRequest } from '$lib/schemas/window';
@@ -74,10 +75,11 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 			...r,
 			id: Number(r.id),
 			peakNm: lampById.get(r.id)?.peakNm ?? null,
-			photonFluxBasis: lampById.get(r.id)?.basis ?? null
+			photonFluxBasis: lampById.get(r.id)?.basis ?? null,
+			photonFluxCalibration: lampById.has(r.id) ? calibrationNote(lampById.get(r.id)!.calibration, wall.transmission) : null
 		})),
 		explanation: answer.explanation,
-		cautions: mergeCautions(...lamps.map((l) => l.cautions)),
+		cautions: cautionsPerLamp(lamps.map((l) => ({ lampId: l.lamp.id, lampName: l.lamp.name, cautions: l.cautions }))),
 		substrate: { id: substrate.row.id, name: substrate.row.name, concentrationM: req.substrate.concentrationM },
 		solvent: { id: solvent.solvent.id, name: solvent.solvent.name, cutoffNm: solvent.solvent.cutoffNm, basis: solvent.basis, spectrumId: solvent.spectrumId, spectrumName: solvent.spectrumName, note: solvent.basisNote, source: solvent.solvent.source },
 		wall: { materialId: wall.material.id, name: wall.material.name, thicknessMm: req.wall.thicknessMm, source: wall.material.source },
