@@ -153,3 +153,14 @@ describe('plans keep the reaction mode and vessel', () => {
 		expect(Number((await db()('plans').count({ n: '*' }))[0].n)).toBe(before);
 	});
 });
+
+describe('a calibrated lamp and the liquid-side wall face', () => {
+	it('through its calibration wall the liquid receives exactly the calibrated flux (the wall applied once)', async () => {
+		// a calibration is "the photon flux entering the solution through a given vessel wall" (API.md, Actinometry)
+		await db()('lamp_calibrations').insert({ lamp_id: lampIds.uv, method: 'actinometry', photon_flux_einstein_per_s: 2e-7, wavelength_nm: 310, wall_material_id: wallId, wall_thickness_mm: 1.5, vessel_path_cm: 1, measured_at: new Date() });
+		const r = await computeWindowFor(localsOf('viewer'), body());
+		const uv = r.lamps.find((l: { id: number }) => l.id === lampIds.uv)!;
+		expect(uv.incidentPhotonFluxEinsteinPerS * (1 - uv.shares.wall)).toBeCloseTo(2e-7, 12);
+		expect(uv.photonFluxBasis).toBe('actinometry');
+	});
+});

@@ -5,11 +5,13 @@
 import { computeWindow, computeWindowRanking, opticsOf, type OtherSpecies, type ReactionSpec } from '$lib/irradiation/computeWindow';
 import { innerFaceCorrection, wallTransmissionIntoLiquid, type VesselOptics } from '$lib/irradiation/vessels';
 import { computeFlow } from '$lib/irradiation/flow';
-import { mergeCautions } from '$lib/irradiation/cautions';
+import { cautionsPerLamp } from '$lib/irradiation/cautions';
+import { calibrationNote } from './lampCalibrations';
 import { speciesAbsorbance } from '$lib/irradiation/innerFilter';
 import { suggestPhotocatalysts, type CatalystCandidate } from '$lib/irradiation/sensitised';
 import { windowPhysicsIssues, windowRequestSchema, windowShapeIssues, type WindowRequest } from '$lib/schemas/window';
 import { findSpectrumById, listSpectrumSummaries } from '$lib/server/db/spectra';
+import { getWallMaterial } from '$lib/server/db/wallMaterials';
 import { ApiError, zodToApiError } from '$lib/server/http';
 import { callerOf } from './spectraAccess';
 import { absorberOnGrid, epsilonOnGrid, GRID, lampsOnGrid, solventOnGrid, wallOnGrid } from './windowInputs';
@@ -58,6 +60,7 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 	// the inner face of the wall meets the liquid, not air (vessels.ts)
 	const nWall = wall.material.refractiveIndex, nLiquid = solvent.solvent.refractiveIndex;
 	const wallT = wallTransmissionIntoLiquid(wall.transmission, nWall, nLiquid);
+	await keepCalibrationWallOnce(lamps, groupIds, nLiquid);
 	const optics = opticsOf({ vessel: req.vessel, pathCm: req.pathCm ?? 0 });
 
 	const common = {
@@ -99,10 +102,11 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 			...r,
 			id: Number(r.id),
 			peakNm: lampById.get(r.id)?.peakNm ?? null,
-			photonFluxBasis: lampById.get(r.id)?.basis ?? null
+			photonFluxBasis: lampById.get(r.id)?.basis ?? null,
+			photonFluxCalibration: lampById.has(r.id) ? calibrationNote(lampById.get(r.id)!.calibration, wall.transmission) : null
 		})),
 		explanation: [...answer.explanation, ...notes],
-		cautions: mergeCautions(...lamps.map((l) => l.cautions)),
+		cautions: cautionsPerLamp(lamps.map((l) => ({ lampId: l.lamp.id, lampName: l.lamp.name, cautions: l.cautions }))),
 		substrate: { id: substrate.row.id, name: substrate.row.name, concentrationM: req.substrate.concentrationM },
 		solvent: { id: solvent.solvent.id, name: solvent.solvent.name, cutoffNm: solvent.solvent.cutoffNm, basis: solvent.basis, source: solvent.solvent.source, refractiveIndex: nLiquid },
 		wall: {
@@ -114,6 +118,22 @@ export async function computeWindowFor(locals: App.Locals, body: unknown) {
 		sensitised: answer.windows.length || !direct ? null : await sensitisedFor(locals, caller, req, optics, substrate, others, solvent.absorbancePerCm, wallT),
 		curves: req.includeCurves ? curvesFor(substrate.epsilon, req, optics, reaction, others, solvent.absorbancePerCm, wallT, lamps) : undefined
 	};
+}
+
+/**
+ * A calibration is the flux that entered the actinometer solution through its wall, inner face included; the lamps
+ * module backs that wall out with two air faces (walls.ts). The planner's walls have a glass/liquid inner face, so the
+ * calibrated lamps' flux is divided by the calibration wall's inner-face factor: with the calibration wall itself the
+ * liquid then receives exactly the calibrated flux (the wall applied once).
+ */
+async function keepCalibrationWallOnce(lamps: Awaited<ReturnType<typeof lampsOnGrid>>, groupIds: number[], nLiquid: number | null) {
+	for (const l of lamps) {
+		const latest = l.calibration?.calibrationWall ? l.calibration.basis.latest : null;
+		if (!latest?.wallMaterialId) continue;
+		const m = await getWallMaterial(latest.wallMaterialId, [l.lamp.groupId, ...groupIds]);
+		const f = innerFaceCorrection(m?.refractiveIndex, nLiquid);
+		if (f !== 1) l.photonFluxPerNm = l.photonFluxPerNm.map((v) => v / f);
+	}
 }
 
 /**
