@@ -1,10 +1,20 @@
-/** GET /api/spectra/similar?to=:id&limit=: the caller's visible spectra nearest in shape (cosine on the 1 nm vectors). */
-import { bufferToVector } from '../../spectra/grid';
-import { rankSimilar } from '../../spectra/similarity';
+/**
+ * GET /api/spectra/similar?to=:id&limit=: the caller's visible spectra nearest in shape (cosine on
+ * the 1 nm vectors). The database names the candidates (visible, same kind, not deleted); the scores
+ * come from one pass over the process's vector cache — in a worker thread when there are many
+ * candidates, so the request's event loop stays free.
+ */
 import { ApiError } from '../http';
-import { listSpectrumSummaries } from '../db/spectra';
+import { listSpectrumIds, summariesByIds } from '../db/spectra';
+import { tagsOfSpectra } from '../db/tags';
+import { copyFloat32Into } from '../db/spectraBlobs';
 import { visibleSpectrum } from './spectraAccess';
 import { spectrumToApi } from './spectraView';
+import { vectorCache } from './spectraVectorCache';
+import { topKInProcess, topKInWorker, type TopKJob } from './similarityKernel';
+
+/** Candidates from which the scan runs in the worker thread (WINDOWSILL_SIMILAR_WORKER_MIN, default 20,000). */
+const workerMin = () => Number(process.env.WINDOWSILL_SIMILAR_WORKER_MIN ?? 20_000);
 
 /**
  * Ranks spectra of the same kind by shape similarity to `to`.
@@ -16,8 +26,21 @@ export async function similarSpectra(locals: App.Locals, toParam: string | null,
 	const limit = limitParam ? Number(limitParam) : 5;
 	if (!Number.isInteger(limit) || limit < 1 || limit > 50) throw new ApiError(400, 'invalid', 'limit: a whole number from 1 to 50', { field: 'limit' });
 	const { caller, row } = await visibleSpectrum(locals, toParam);
-	const rows = (await listSpectrumSummaries(caller.reader, { kind: row.kind, withVector: true })).filter((r) => r.id !== row.id);
-	const ranked = rankSimilar(bufferToVector(row.search_vector), rows.map((r) => ({ id: r.id, vector: bufferToVector(r.search_vector) })), limit);
-	const byId = new Map(rows.map((r) => [r.id, r]));
-	return { to: row.id, items: ranked.map((h) => ({ ...spectrumToApi(byId.get(h.id)!), similarity: h.score })) };
+	const [cache, ids] = await Promise.all([vectorCache(), listSpectrumIds(caller.reader, { kind: row.kind }, { key: 'id', dir: 'desc' })]);
+	const slots = cache.slotsOf(ids.filter((id) => id !== Number(row.id)));
+	// the target as stored in the row just read (the cache may be a change behind for this very row)
+	const target = new Float32Array(cache.len);
+	const tv = row.search_vector;
+	if (tv.byteLength === cache.len * 4) copyFloat32Into(tv, target, 0);
+	let ss = 0;
+	for (let i = 0; i < target.length; i++) ss += target[i] * target[i];
+	const job: TopKJob = { vectors: cache.vectors, len: cache.len, target, targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: cache.invNorm, ids: cache.ids, k: limit };
+	const ranked = slots.length >= workerMin() ? await topKInWorker(job) : topKInProcess(job);
+	const rows = await summariesByIds(caller.reader, ranked.map((h) => h.id));
+	const tags = await tagsOfSpectra(rows.map((r) => Number(r.id)));
+	const byId = new Map(rows.map((r) => [Number(r.id), r]));
+	return {
+		to: row.id,
+		items: ranked.filter((h) => byId.has(h.id)).map((h) => ({ ...spectrumToApi(byId.get(h.id)!, tags.get(h.id) ?? []), similarity: h.score }))
+	};
 }
