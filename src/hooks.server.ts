@@ -5,6 +5,7 @@ import { authHandle } from '$lib/server/auth/handle';
 import { closeAuthPool } from '$lib/server/auth/session';
 import { closeMailTransport } from '$lib/server/mail/transport';
 import { csrfGuard } from '$lib/server/csrf';
+import { compressionHandle } from '$lib/server/compression';
 
 /** Security headers on every response; the CSP itself comes from svelte.config.js (kit.csp). */
 const securityHeaders: Handle = async ({ event, resolve }) => {
@@ -18,7 +19,8 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 
 // csrfGuard replaces SvelteKit's origin check (svelte.config.js trusts '*'); it lets bearer requests
 // through, which is safe because authHandle never falls back to the cookie when a bearer header is sent.
-export const handle = sequence(securityHeaders, csrfGuard, authHandle);
+// compressionHandle first: it compresses the final answer of everything after it (gzip/br for HTML and JSON).
+export const handle = sequence(compressionHandle, securityHeaders, csrfGuard, authHandle);
 
 export const handleError: HandleServerError = ({ error, event }) => {
 	console.error(`[error] ${event.request.method} ${event.url.pathname}`, error);

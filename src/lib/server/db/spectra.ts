@@ -2,14 +2,12 @@
  * Repository of the Library's tables. `spectra` holds narrow metadata rows; the heavy data live in
  * side tables — `spectrum_points` (Float64 chunks of the original and normalised series),
  * `spectrum_vectors` (the 1 nm Float32 search vector), `spectrum_files` + `spectrum_file_chunks`
- * (the original file, stored once per upload) — and `spectrum_terms` is the n-gram index of names,
- * synonyms and CAS numbers. Every write stamps the next `library_state.change_seq` on the rows it
+ * (the original file, stored once per upload). Every write stamps the next `library_state.change_seq` on the rows it
  * touches, so per-process caches (services/spectraVectorCache.ts) reload exactly what changed.
  *
  * To add a metadata column: a migration, a field in `SpectrumRow`, a name in `SUMMARY_COLUMNS`.
  */
 import type { Knex } from 'knex';
-import { spectrumTermTexts, trigramsOf } from '../../spectra/trigrams';
 import { db } from './index';
 import { FILE_CHUNK_BYTES, POINT_CHUNK_VALUES, POINT_SERIES, bufferToFloat64, chunkBytes, insertBatched, type PointSeries } from './spectraBlobs';
 
@@ -240,7 +238,7 @@ function splitRow<T extends Record<string, unknown>>(row: T) {
 }
 
 /**
- * Inserts spectra (one metadata row each) and their points, vectors and name trigrams with
+ * Inserts spectra (one metadata row each) and their points and vectors with
  * multi-row inserts batched below max_allowed_packet; returns the ids in order.
  */
 export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[], seq?: number): Promise<number[]> {
@@ -248,7 +246,6 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 	const ids: number[] = [];
 	const points: Record<string, unknown>[] = [];
 	const vectors: Record<string, unknown>[] = [];
-	const terms: Record<string, unknown>[] = [];
 	for (const row of rows) {
 		const { meta, side } = splitRow(row as unknown as Record<string, unknown>);
 		const [id] = await trx('spectra').insert({ ...meta, change_seq: changeSeq });
@@ -256,11 +253,9 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 		ids.push(sid);
 		for (const s of POINT_SERIES) if (side[s]) points.push(...pointRows(sid, s, side[s]!));
 		if (side.search_vector) vectors.push({ spectrum_id: sid, vector: side.search_vector });
-		for (const gram of trigramsOf(...spectrumTermTexts(row))) terms.push({ gram, spectrum_id: sid });
 	}
 	await insertBatched(trx, 'spectrum_points', points);
 	await insertBatched(trx, 'spectrum_vectors', vectors);
-	await insertBatched(trx, 'spectrum_terms', terms, 20000);
 	return ids;
 }
 
@@ -312,6 +307,14 @@ export async function findSpectrumSummaryById(id: number, conn: Knex | Knex.Tran
 	return summaryQuery(conn).where('s.id', id).first(SUMMARY_COLUMNS);
 }
 
+/** Metadata rows by id, in the order given (no visibility rule: for the writer's own answer). */
+export async function findSpectrumSummariesByIds(ids: number[], conn: Knex | Knex.Transaction = db()): Promise<SpectrumRow[]> {
+	if (!ids.length) return [];
+	const rows: SpectrumRow[] = await summaryQuery(conn).whereIn('s.id', ids).select(SUMMARY_COLUMNS);
+	const byId = new Map(rows.map((r) => [Number(r.id), r]));
+	return ids.map((id) => byId.get(id)).filter((r): r is SpectrumRow => !!r);
+}
+
 /** The search vectors of some spectra (Float32 little-endian bytes) by id. */
 export async function findVectors(ids: number[], conn: Knex = db()): Promise<Map<number, Buffer>> {
 	const side = await sideDataOf(ids, conn, { points: false, vector: true });
@@ -358,35 +361,9 @@ export async function summariesByIds(reader: Reader, ids: number[], f: SpectrumS
 }
 
 /**
- * Visible rows sharing at least `need` of the given name trigrams, most shared first: the
- * candidates of a fuzzy name search. Also ids whose tags are in `tagIds`.
- */
-export async function termCandidates(reader: Reader, f: SpectrumSqlFilter, grams: number[], need: number, tagIds: number[], conn: Knex = db()): Promise<{ id: number; hits: number }[]> {
-	const hits = new Map<number, number>();
-	const q = applyFilter(conn('spectra as s'), reader, f);
-	const matched = conn('spectrum_terms').whereIn('gram', grams.length ? grams : [-1]).groupBy('spectrum_id').havingRaw('COUNT(*) >= ?', [need]).select('spectrum_id', conn.raw('COUNT(*) AS hits'));
-	q.join(matched.as('m'), 'm.spectrum_id', 's.id').select('s.id', 'm.hits');
-	if (f.owner) q.leftJoin('users as u', 'u.id', 's.owner_id');
-	const rows: { id: number; hits: number }[] = await q;
-	for (const r of rows) hits.set(Number(r.id), Number(r.hits));
-	if (tagIds.length) {
-		const t = applyFilter(conn('spectra as s'), reader, f).whereIn('s.id', (sub) => sub.from('spectrum_tags').whereIn('tag_id', tagIds).select('spectrum_id')).select('s.id');
-		for (const r of (await t) as { id: number }[]) hits.set(Number(r.id), Math.max(hits.get(Number(r.id)) ?? 0, need));
-	}
-	return [...hits].map(([id, h]) => ({ id, hits: h }));
-}
-
-/** Rebuilds the name trigrams of one spectrum. */
-async function rewriteTerms(trx: Knex.Transaction, id: number) {
-	const row = await trx('spectra').where({ id }).first('name', 'synonyms', 'cas');
-	await trx('spectrum_terms').where({ spectrum_id: id }).delete();
-	if (row) await insertBatched(trx, 'spectrum_terms', trigramsOf(...spectrumTermTexts(row)).map((gram) => ({ gram, spectrum_id: id })), 20000);
-}
-
-/**
  * Updates a spectrum if the row still has `version`; bumps the version and the change number.
- * Points and vector in the patch replace the stored ones; a new name, synonyms or CAS rebuild the
- * trigrams. Returns the number of rows changed (0 = stale version or missing row).
+ * Points and vector in the patch replace the stored ones.
+ * Returns the number of rows changed (0 = stale version or missing row).
  */
 export async function updateSpectrumIfVersion(trx: Knex.Transaction, id: number, version: number, patch: Partial<NewSpectrumRow> & { deleted_at?: Date | null }): Promise<number> {
 	const { meta, side } = splitRow(patch as Record<string, unknown>);
@@ -404,17 +381,28 @@ export async function updateSpectrumIfVersion(trx: Knex.Transaction, id: number,
 		await trx('spectrum_vectors').where({ spectrum_id: id }).delete();
 		await trx('spectrum_vectors').insert({ spectrum_id: id, vector: side.search_vector });
 	}
-	if ('name' in meta || 'synonyms' in meta || 'cas' in meta) await rewriteTerms(trx, id);
 	return n;
 }
 
-/** What the vector cache reads of each spectrum changed after `seq` (keyset paging by id). */
+/** What the Library index (services/spectraVectorCache.ts) reads of each spectrum. */
 export interface VectorCacheRow {
 	id: number;
+	group_id: number;
+	owner_id: string | null;
+	name: string;
+	synonyms: string | null;
+	cas: string | null;
+	part: string;
 	kind: string;
+	solvent: string | null;
+	visibility: string;
 	y_unit: string;
 	concentration_m: number | null;
 	path_cm: number | null;
+	lambda_max_nm: number | null;
+	deleted_at: Date | null;
+	created_at: Date;
+	updated_at: Date;
 	change_seq: number;
 	vector: Buffer | null;
 }
@@ -427,7 +415,30 @@ export async function vectorRowsChangedSince(seq: number, afterId: number, limit
 		.andWhere('s.id', '>', afterId)
 		.orderBy('s.id')
 		.limit(limit)
-		.select('s.id', 's.kind', 's.y_unit', 's.concentration_m', 's.path_cm', 's.change_seq', 'v.vector');
+		.select(
+			's.id', 's.group_id', 's.owner_id', 's.name', 's.synonyms', 's.cas', 's.part', 's.kind', 's.solvent', 's.visibility', 's.y_unit',
+			's.concentration_m', 's.path_cm', 's.lambda_max_nm', 's.deleted_at', 's.created_at', 's.updated_at', 's.change_seq', 'v.vector'
+		);
+}
+
+/** Ids of users whose name contains `text` (case-insensitive). */
+export async function userIdsNamed(text: string, conn: Knex = db()): Promise<string[]> {
+	const rows: { id: string }[] = await conn('users').whereRaw('LOWER(name) LIKE ?', [`%${likeEscape(text)}%`]).select('id');
+	return rows.map((r) => r.id);
+}
+
+/** Names of users by id. */
+export async function userNames(ids: string[], conn: Knex = db()): Promise<Map<string, string>> {
+	if (!ids.length) return new Map();
+	const rows: { id: string; name: string }[] = await conn('users').whereIn('id', ids).select('id', 'name');
+	return new Map(rows.map((r) => [r.id, r.name]));
+}
+
+/** Ids of spectra carrying any of the tags. */
+export async function spectrumIdsTagged(tagIds: number[], conn: Knex = db()): Promise<number[]> {
+	if (!tagIds.length) return [];
+	const rows: { spectrum_id: number }[] = await conn('spectrum_tags').whereIn('tag_id', tagIds).distinct('spectrum_id');
+	return rows.map((r) => Number(r.spectrum_id));
 }
 
 /** Resolves group slugs or ids to ids. */

@@ -1,13 +1,14 @@
 /**
  * GET /api/spectra, the Library table and every picker. Three paths, each with an exact total:
  *
- * - plain listing: filters, ORDER BY and LIMIT/OFFSET in SQL, COUNT(*) for the total;
- * - name search (`q`): a CAS-shaped query matches CAS numbers exactly; otherwise the n-gram index
- *   (`spectrum_terms`) gives every visible row sharing at least half of the query's trigrams (plus
- *   rows whose tags match), and fuse.js re-ranks the best RERANK candidates on the real text;
- * - vector filters (`absorbsAt`, `transparentAbove`): SQL lists the ids that pass the other filters
- *   in the requested order, the process's vector cache keeps those whose vector passes.
- * Only the page's rows are then read in full.
+ * - plain listing (and a CAS-shaped `q`, which matches CAS numbers exactly, never fuzzily):
+ *   filters, ORDER BY and LIMIT/OFFSET in SQL, COUNT(*) for the total;
+ * - name search (`q`): the process's n-gram index (spectraVectorCache.ts) gives every row the caller
+ *   may see that shares at least half of the query's trigrams (plus rows whose tags match), and
+ *   fuse.js re-ranks the best RERANK candidates on the real text;
+ * - vector filters (`absorbsAt`, `transparentAbove`): the same index holds the vectors and the
+ *   narrow metadata, so filters, visibility, the vector test and the order are applied in memory.
+ * Only the page's rows are then read from the database, with the caller's visibility applied again.
  */
 import Fuse from 'fuse.js';
 import type { SpectrumListQuery } from '../../schemas/spectra';
@@ -15,10 +16,11 @@ import { trigramsOf } from '../../spectra/trigrams';
 import { db } from '../db/index';
 import {
 	findGroupIds,
-	listSpectrumIds,
 	pageSpectrumSummaries,
+	spectrumIdsTagged,
 	summariesByIds,
-	termCandidates,
+	userIdsNamed,
+	userNames,
 	type SortKey,
 	type SpectrumOrder,
 	type SpectrumRow,
@@ -62,6 +64,7 @@ export function casQuery(q: string): string | null {
 
 interface Hit {
 	id: number;
+	slot?: number;
 	score?: number;
 	absorbanceAt?: number;
 	epsilonAt?: number;
@@ -87,33 +90,119 @@ async function sqlFilterOf(caller: Caller, q: SpectrumListQuery): Promise<Spectr
 	};
 }
 
+/**
+ * The same rows as the SQL filter (db/spectra.ts applyFilter) selects, as a test on index slots:
+ * visibility, deleted scope, part, kind, solvent, group, owner, visibility, CAS.
+ */
+export async function slotFilter(c: VectorCache, caller: Caller, f: SpectrumSqlFilter): Promise<(slot: number) => boolean> {
+	const r = caller.reader;
+	const me = c.owners.find(r.userId) ?? -2;
+	const readerGroups = new Set(r.groupIds);
+	const none = () => false;
+	const code = (d: { find(s: string): number | undefined }, v: string | undefined) => (v === undefined ? undefined : (d.find(v) ?? -9));
+	const part = code(c.parts, f.part);
+	const kind = code(c.kinds, f.kind);
+	if (part === -9 || kind === -9) return none;
+	const vis = f.visibility === undefined ? undefined : ['private', 'group', 'public'].indexOf(f.visibility);
+	const groups = f.groupIds ? new Set(f.groupIds) : undefined;
+	let solvents: Set<number> | undefined;
+	if (f.solvent) {
+		const needle = f.solvent.toLowerCase();
+		solvents = new Set(c.solvents.list.flatMap((s, i) => (s.includes(needle) ? [i] : [])));
+	}
+	let owners: Set<number> | undefined;
+	if (f.owner) {
+		const ids = [f.owner, ...(await userIdsNamed(f.owner))];
+		owners = new Set(ids.map((id) => c.owners.find(id)).filter((x): x is number => x !== undefined));
+	}
+	const d = f.deletedScope;
+	const memberGroups = new Set(d?.memberGroupIds ?? []);
+	const leadGroups = new Set(d?.leadGroupIds ?? []);
+	return (s) => {
+		if (!r.isAdmin && !(c.ownerCode[s] === me || c.visCode[s] === 2 || (c.visCode[s] === 1 && readerGroups.has(c.groupId[s])))) return false;
+		const del = c.deleted[s] === 1;
+		if (f.deleted === 'only' ? !del : f.deleted !== 'include' && del) return false;
+		if (del && f.deleted && d && !d.isAdmin && !((c.ownerCode[s] === me && memberGroups.has(c.groupId[s])) || leadGroups.has(c.groupId[s]))) return false;
+		if (part !== undefined && c.partCode[s] !== part) return false;
+		if (kind !== undefined && c.kindCode[s] !== kind) return false;
+		if (solvents && !solvents.has(c.solventCode[s])) return false;
+		if (groups && !groups.has(c.groupId[s])) return false;
+		if (owners && !owners.has(c.ownerCode[s])) return false;
+		if (vis !== undefined && c.visCode[s] !== vis) return false;
+		if (f.cas !== undefined && c.cas[s] !== f.cas) return false;
+		return true;
+	};
+}
+
+/** Sorts hits by the order (as db/spectra.ts applyOrder does: nulls last, ties by id). */
+async function sortHits(c: VectorCache, hits: Hit[], o: SpectrumOrder): Promise<void> {
+	const sign = o.dir === 'desc' ? -1 : 1;
+	const idSign = o.key === 'createdAt' || o.key === 'updatedAt' || o.key === 'id' ? sign : 1;
+	let key: (s: number) => number | string | null;
+	switch (o.key) {
+		case 'updatedAt':
+			key = (s) => c.updatedMs[s];
+			break;
+		case 'createdAt':
+			key = (s) => c.createdMs[s];
+			break;
+		case 'lambdaMaxNm':
+			key = (s) => (Number.isNaN(c.lambdaMax[s]) ? null : c.lambdaMax[s]);
+			break;
+		case 'name':
+			key = (s) => c.names[s].toLowerCase();
+			break;
+		case 'part':
+			key = (s) => c.parts.list[c.partCode[s]];
+			break;
+		case 'solvent':
+			key = (s) => (c.solventCode[s] < 0 ? null : c.solvents.list[c.solventCode[s]]);
+			break;
+		case 'owner': {
+			const names = await userNames(c.owners.list);
+			key = (s) => (c.ownerCode[s] < 0 ? null : (names.get(c.owners.list[c.ownerCode[s]])?.toLowerCase() ?? null));
+			break;
+		}
+		default:
+			key = () => 0;
+	}
+	const keys = new Map<number, number | string | null>();
+	for (const h of hits) keys.set(h.id, key(h.slot!));
+	hits.sort((a, b) => {
+		const x = keys.get(a.id)!;
+		const y = keys.get(b.id)!;
+		if (x === null || y === null) return x === y ? a.id - b.id : x === null ? 1 : -1;
+		if (x < y) return -sign;
+		if (x > y) return sign;
+		return (a.id - b.id) * idSign;
+	});
+}
+
 const vectorRowOf = (c: VectorCache, slot: number): VectorRow => {
 	const cl = c.cl[slot];
 	return { kind: c.kindOf(slot), y_unit: c.unitOf(slot), concentration_m: Number.isNaN(cl) ? null : cl, path_cm: Number.isNaN(cl) ? null : 1 };
 };
 
-/** Keeps the ids whose cached vector passes the query's vector filters (order kept). */
-function vectorFiltered(c: VectorCache, ids: ArrayLike<number>, q: SpectrumListQuery): Hit[] {
-	const out: Hit[] = [];
-	const rule = q.absorbsAt !== undefined ? { wavelengthNm: q.absorbsAt, minAbsorbance: q.minAbsorbance, minEpsilon: q.minEpsilon } : undefined;
-	for (let i = 0; i < ids.length; i++) {
-		const slot = c.slotOf.get(ids[i]);
-		if (slot === undefined || !c.valid[slot]) continue;
-		const kind = c.kindOf(slot);
-		if (rule && kind !== 'absorption') continue;
-		if (q.transparentAbove !== undefined) {
-			const facts = { max: c.max[slot], lastAbove5pct: c.lastAbove5pct[slot], lastMeasured: c.lastMeasured[slot], lastBelowHalf: c.lastBelowHalf[slot] };
-			if (!transparentAboveFromFacts(kind, facts, q.transparentAbove)) continue;
-		}
-		if (rule) {
-			const row = vectorRowOf(c, slot);
-			const v = c.vector(slot);
-			if (!absorbsAtWithMax(row, v, c.max[slot], rule)) continue;
-			const at = absorptionAt(row, v, rule.wavelengthNm);
-			out.push({ id: ids[i], absorbanceAt: at.absorbance, epsilonAt: at.epsilon });
-		} else out.push({ id: ids[i] });
+/** The hit if the slot's vector passes the query's vector filters, else null. */
+function vectorHit(c: VectorCache, slot: number, q: SpectrumListQuery): Hit | null {
+	if (!c.valid[slot]) return null;
+	const kind = c.kindOf(slot);
+	const hit: Hit = { id: c.ids[slot], slot };
+	if (q.transparentAbove !== undefined) {
+		const facts = { max: c.max[slot], lastAbove5pct: c.lastAbove5pct[slot], lastMeasured: c.lastMeasured[slot], lastBelowHalf: c.lastBelowHalf[slot] };
+		if (!transparentAboveFromFacts(kind, facts, q.transparentAbove)) return null;
 	}
-	return out;
+	if (q.absorbsAt !== undefined) {
+		if (kind !== 'absorption') return null;
+		const rule = { wavelengthNm: q.absorbsAt, minAbsorbance: q.minAbsorbance, minEpsilon: q.minEpsilon };
+		const row = vectorRowOf(c, slot);
+		const v = c.vector(slot);
+		if (!absorbsAtWithMax(row, v, c.max[slot], rule)) return null;
+		const at = absorptionAt(row, v, rule.wavelengthNm);
+		if (at.absorbance !== undefined) hit.absorbanceAt = at.absorbance;
+		if (at.epsilon !== undefined) hit.epsilonAt = at.epsilon;
+	}
+	return hit;
 }
 
 /** Tags whose name is close to the query (the tag list is small). */
@@ -123,38 +212,36 @@ async function matchingTagIds(text: string): Promise<number[]> {
 	return new Fuse(tags, { keys: ['name'], threshold: 0.3, ignoreLocation: true, minMatchCharLength: 2 }).search(text).map((h) => Number(h.item.id));
 }
 
-/** Ranked ids of a fuzzy name search (see the module comment). */
-async function fuzzyIds(caller: Caller, f: SpectrumSqlFilter, text: string): Promise<Hit[]> {
+/** Ranked hits of a fuzzy name search among the slots passing `accept` (see the module comment). */
+async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text: string): Promise<Hit[]> {
 	const grams = trigramsOf(text);
 	if (!grams.length) return [];
 	const need = Math.max(1, Math.ceil(grams.length * MIN_SHARE));
-	const cands = await termCandidates(caller.reader, f, grams, need, await matchingTagIds(text));
-	cands.sort((a, b) => b.hits - a.hits || b.id - a.id);
+	const cands = c.gramHits(grams, need, accept);
+	const bySlot = new Set(cands.map((x) => x.slot));
+	for (const id of await spectrumIdsTagged(await matchingTagIds(text))) {
+		const slot = c.slotOf.get(id);
+		if (slot !== undefined && !bySlot.has(slot) && accept(slot)) {
+			cands.push({ slot, hits: need });
+			bySlot.add(slot);
+		}
+	}
+	cands.sort((a, b) => b.hits - a.hits || c.ids[b.slot] - c.ids[a.slot]);
 	const top = cands.slice(0, RERANK);
-	const rows = await summariesByIds(caller.reader, top.map((c) => c.id));
-	const tags = await tagsOfSpectra(rows.map((r) => Number(r.id)));
-	const docs = rows.map((r) => ({ id: Number(r.id), name: r.name, synonyms: parseList(r.synonyms), cas: r.cas ?? '', tags: tags.get(Number(r.id)) ?? [] }));
+	const tags = await tagsOfSpectra(top.map((x) => c.ids[x.slot]));
+	const docs = top.map((x) => ({ slot: x.slot, name: c.names[x.slot], synonyms: c.synonyms[x.slot], cas: c.cas[x.slot] ?? '', tags: tags.get(c.ids[x.slot]) ?? [] }));
 	const fused = new Fuse(docs, FUSE_OPTIONS).search(text);
 	const seen = new Set<number>();
 	const out: Hit[] = [];
 	for (const h of fused) {
-		seen.add(h.item.id);
-		out.push({ id: h.item.id, score: h.score ?? 0 });
+		seen.add(h.item.slot);
+		out.push({ id: c.ids[h.item.slot], slot: h.item.slot, score: h.score ?? 0 });
 	}
-	for (const c of cands) if (!seen.has(c.id)) out.push({ id: c.id, score: Number((1 - c.hits / grams.length).toFixed(4)) });
+	for (const x of cands) if (!seen.has(x.slot)) out.push({ id: c.ids[x.slot], slot: x.slot, score: Number((1 - x.hits / grams.length).toFixed(4)) });
 	return out;
 }
 
-function parseList(s: string | null): string[] {
-	try {
-		const v = JSON.parse(s || '[]');
-		return Array.isArray(v) ? v.filter((x) => typeof x === 'string') : [];
-	} catch {
-		return [];
-	}
-}
-
-/** Shapes one page of hits. */
+/** Shapes one page of rows. */
 async function itemsOf(caller: Caller, rows: SpectrumRow[], hits?: Map<number, Hit>) {
 	const tags = await tagsOfSpectra(rows.map((r) => Number(r.id)));
 	return rows.map((row) => {
@@ -184,23 +271,25 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 		return { total, items: await itemsOf(caller, rows) };
 	}
 
+	const c = await vectorCache();
+	const accept = await slotFilter(c, caller, f);
 	let hits: Hit[];
 	if (fuzzy) {
-		hits = await fuzzyIds(caller, f, text);
-		if (q.sort && hits.length) {
-			const rank = new Map(hits.map((h) => [h.id, h]));
-			const ordered = await listSpectrumIds(caller.reader, { ...f, ids: hits.map((h) => h.id) }, order);
-			hits = Array.from(ordered, (id) => rank.get(id)!);
-		}
-		if (needVector) {
-			const c = await vectorCache();
-			const passed = new Map(vectorFiltered(c, hits.map((h) => h.id), q).map((h) => [h.id, h]));
-			hits = hits.filter((h) => passed.has(h.id)).map((h) => ({ ...passed.get(h.id)!, score: h.score }));
-		}
+		hits = await fuzzyHits(c, accept, text);
+		if (needVector)
+			hits = hits.flatMap((h) => {
+				const v = vectorHit(c, h.slot!, q);
+				return v ? [{ ...v, score: h.score }] : [];
+			});
+		if (q.sort) await sortHits(c, hits, order);
 	} else {
-		const kindFilter: SpectrumSqlFilter = q.absorbsAt !== undefined && !f.kind ? { kind: 'absorption' } : {};
-		const [c, ids] = await Promise.all([vectorCache(), listSpectrumIds(caller.reader, { ...f, ...kindFilter }, order)]);
-		hits = vectorFiltered(c, ids, q);
+		hits = [];
+		for (let s = 0; s < c.count; s++) {
+			if (!accept(s)) continue;
+			const h = vectorHit(c, s, q);
+			if (h) hits.push(h);
+		}
+		await sortHits(c, hits, order);
 	}
 	const page = hits.slice(q.offset, q.offset + q.limit);
 	const rows = await summariesByIds(caller.reader, page.map((h) => h.id), { deleted: 'include' });

@@ -1,11 +1,13 @@
 /**
  * GET /api/spectra/similar?to=:id&limit=: the caller's visible spectra nearest in shape (cosine on
- * the 1 nm vectors). The database names the candidates (visible, same kind, not deleted); the scores
- * come from one pass over the process's vector cache — in a worker thread when there are many
- * candidates, so the request's event loop stays free.
+ * the 1 nm vectors). Candidates: what the caller may see, same kind, not deleted (the process's
+ * Library index, kept right by the change counter); scores: one pass over its contiguous vectors —
+ * in a worker thread when there are many candidates, so the request's event loop stays free. The
+ * winners are read back from the database with the caller's visibility applied.
  */
 import { ApiError } from '../http';
-import { listSpectrumIds, summariesByIds } from '../db/spectra';
+import { summariesByIds } from '../db/spectra';
+import { slotFilter } from './spectraSearch';
 import { tagsOfSpectra } from '../db/tags';
 import { copyFloat32Into } from '../db/spectraBlobs';
 import { visibleSpectrum } from './spectraAccess';
@@ -26,8 +28,12 @@ export async function similarSpectra(locals: App.Locals, toParam: string | null,
 	const limit = limitParam ? Number(limitParam) : 5;
 	if (!Number.isInteger(limit) || limit < 1 || limit > 50) throw new ApiError(400, 'invalid', 'limit: a whole number from 1 to 50', { field: 'limit' });
 	const { caller, row } = await visibleSpectrum(locals, toParam);
-	const [cache, ids] = await Promise.all([vectorCache(), listSpectrumIds(caller.reader, { kind: row.kind }, { key: 'id', dir: 'desc' })]);
-	const slots = cache.slotsOf(ids.filter((id) => id !== Number(row.id)));
+	const cache = await vectorCache();
+	const accept = await slotFilter(cache, caller, { kind: row.kind });
+	const all = new Int32Array(cache.count);
+	let n = 0;
+	for (let s = 0; s < cache.count; s++) if (cache.valid[s] && cache.ids[s] !== Number(row.id) && accept(s)) all[n++] = s;
+	const slots = all.subarray(0, n);
 	// the target as stored in the row just read (the cache may be a change behind for this very row)
 	const target = new Float32Array(cache.len);
 	const tv = row.search_vector;

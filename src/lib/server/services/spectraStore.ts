@@ -13,7 +13,7 @@ import { vectorToBuffer } from '../../spectra/grid';
 import type { ParseIssue } from '../../spectra/types';
 import { isValidCas, type UploadMetadata } from '../../schemas/spectra';
 import { ApiError } from '../http';
-import { findSpectraBySha, findSpectrumById, insertSpectra, insertSpectrumFile, nextChangeSeq, type NewSpectrumRow } from '../db/spectra';
+import { findSpectraBySha, findSpectrumSummariesByIds, insertSpectra, insertSpectrumFile, nextChangeSeq, type NewSpectrumRow } from '../db/spectra';
 import { float64ToBuffer } from '../db/spectraBlobs';
 import { cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
@@ -88,6 +88,11 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 	};
 }
 
+/** The rows of every prepared spectrum of one upload (file_id still to be set). */
+export function spectrumRowsFor(input: StoreInput, sha256: string): NewSpectrumRow[] {
+	return input.spectra.map((s, i) => rowFor(input, s, i, sha256, input.warnings));
+}
+
 /** SHA-256 of the file bytes, hex. */
 export const sha256Hex = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
 
@@ -132,7 +137,7 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 		await insertMissingTags(trx, tagNames);
 		const tagIds = await findTagIds(trx, tagNames);
 		const fileId = await insertSpectrumFile(trx, { groupId: input.groupId, sha256: sha, fileName: input.filename, bytes: input.bytes });
-		const rows = input.spectra.map((s, i) => ({ ...rowFor(input, s, i, sha, input.warnings), file_id: fileId }));
+		const rows = spectrumRowsFor(input, sha).map((r) => ({ ...r, file_id: fileId }));
 		const out = await insertSpectra(trx, rows, seq);
 		if (tagIds.length) await trx('spectrum_tags').insert(out.flatMap((id) => tagIds.map((tag_id) => ({ spectrum_id: id, tag_id }))));
 		await trx('spectrum_revisions').insert(out.map((id) => ({ spectrum_id: id, version: 1, action: 'create', user_id: input.ownerId, changes: null })));
@@ -140,6 +145,6 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 	});
 	const tags = cleanTags(input.meta.tags ?? []);
 	const items = [];
-	for (const id of ids) items.push(spectrumToApi((await findSpectrumById(id, conn))!, tags));
+	for (const row of await findSpectrumSummariesByIds(ids, conn)) items.push(spectrumToApi(row, tags));
 	return { items, warnings: input.warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
 }
