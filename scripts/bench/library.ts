@@ -176,7 +176,7 @@ async function benchSpectraCount(k: Knex): Promise<number> {
 	const [rows] = await k.raw('SELECT COUNT(*) AS n FROM information_schema.schemata WHERE schema_name = ?', [BENCH_DB]);
 	if (!Number(rows[0].n)) return -1;
 	try {
-		const [r] = await k('spectra').where('file_name', 'like', 'bench-%').count({ n: '*' });
+		const [r] = await k(`${BENCH_DB}.spectra`).where('file_name', 'like', 'bench-%').count({ n: '*' });
 		return Number(r.n);
 	} catch {
 		return -1;

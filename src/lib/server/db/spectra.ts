@@ -246,14 +246,25 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 	const ids: number[] = [];
 	const points: Record<string, unknown>[] = [];
 	const vectors: Record<string, unknown>[] = [];
-	for (const row of rows) {
-		const { meta, side } = splitRow(row as unknown as Record<string, unknown>);
-		const [id] = await trx('spectra').insert({ ...meta, change_seq: changeSeq });
-		const sid = Number(id);
-		ids.push(sid);
+	const split = rows.map((row) => splitRow(row as unknown as Record<string, unknown>));
+	const fileId = rows[0]?.file_id;
+	if (rows.length > 1 && fileId && rows.every((r) => r.file_id === fileId) && !(await trx('spectra').where({ file_id: fileId }).first('id'))) {
+		// one multi-row insert for the spectra of one new file; their ids read back in insertion order
+		await insertBatched(trx, 'spectra', split.map(({ meta }) => ({ ...meta, change_seq: changeSeq })));
+		const got = (await trx('spectra').where({ file_id: fileId }).orderBy('id').select('id')).map((r: { id: number }) => Number(r.id));
+		if (got.length !== rows.length) throw new Error(`insertSpectra: ${got.length} rows for ${rows.length} spectra of file ${fileId}`);
+		ids.push(...got);
+	} else {
+		for (const { meta } of split) {
+			const [id] = await trx('spectra').insert({ ...meta, change_seq: changeSeq });
+			ids.push(Number(id));
+		}
+	}
+	split.forEach(({ side }, i) => {
+		const sid = ids[i];
 		for (const s of POINT_SERIES) if (side[s]) points.push(...pointRows(sid, s, side[s]!));
 		if (side.search_vector) vectors.push({ spectrum_id: sid, vector: side.search_vector });
-	}
+	});
 	await insertBatched(trx, 'spectrum_points', points);
 	await insertBatched(trx, 'spectrum_vectors', vectors);
 	return ids;

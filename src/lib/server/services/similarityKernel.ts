@@ -2,7 +2,7 @@
  * Top-k cosine similarity in one pass over a contiguous Float32Array of vectors (row-major, `len`
  * values per slot) with the inverse L2 norm of each slot precomputed: score = (t · v)·‖t‖⁻¹·‖v‖⁻¹,
  * the same number as cosineSimilarity() of the spectra core (which is scale-invariant), summed in
- * Float64. The best `k` are kept in a binary min-heap ordered by (score, id); ties go to the higher
+ * Float64 with four accumulators (a different summation order: differences ~1e-15, far below 1e-6). The best `k` are kept in a binary min-heap ordered by (score, id); ties go to the higher
  * id, as in a stable sort of candidates listed newest first.
  *
  * The kernel is kept as plain JavaScript source so the very same code runs in-process and in a
@@ -11,21 +11,41 @@
 import { Worker } from 'node:worker_threads';
 
 const KERNEL_SOURCE = String.raw`
+function dotAt(vectors, off, target, len) {
+	var a0 = 0, a1 = 0, a2 = 0, a3 = 0, i = 0, n4 = len - (len & 3);
+	for (; i < n4; i += 4) {
+		a0 += target[i] * vectors[off + i];
+		a1 += target[i + 1] * vectors[off + i + 1];
+		a2 += target[i + 2] * vectors[off + i + 2];
+		a3 += target[i + 3] * vectors[off + i + 3];
+	}
+	for (; i < len; i++) a0 += target[i] * vectors[off + i];
+	return (a0 + a1) + (a2 + a3);
+}
+function heapWorse(hs, hi, a, b) { return hs[a] < hs[b] || (hs[a] === hs[b] && hi[a] < hi[b]); }
+function heapSwap(hs, hi, a, b) { var s = hs[a]; hs[a] = hs[b]; hs[b] = s; var t = hi[a]; hi[a] = hi[b]; hi[b] = t; }
+function heapDown(hs, hi, size, i) {
+	for (;;) {
+		var l = 2 * i + 1, r = l + 1, m = i;
+		if (l < size && heapWorse(hs, hi, l, m)) m = l;
+		if (r < size && heapWorse(hs, hi, r, m)) m = r;
+		if (m === i) return;
+		heapSwap(hs, hi, i, m);
+		i = m;
+	}
+}
+function heapUp(hs, hi, i) {
+	while (i > 0) { var p = (i - 1) >> 1; if (!heapWorse(hs, hi, i, p)) return; heapSwap(hs, hi, i, p); i = p; }
+}
 function topK(vectors, len, target, targetInv, slots, invNorm, ids, k) {
-	var n = slots.length;
-	var hs = new Float64Array(k), hi = new Int32Array(k), hsl = new Int32Array(k), size = 0;
-	function worse(a, b) { return hs[a] < hs[b] || (hs[a] === hs[b] && hi[a] < hi[b]); }
-	function swap(a, b) { var s = hs[a]; hs[a] = hs[b]; hs[b] = s; var t = hi[a]; hi[a] = hi[b]; hi[b] = t; var u = hsl[a]; hsl[a] = hsl[b]; hsl[b] = u; }
-	function down(i) { for (;;) { var l = 2 * i + 1, r = l + 1, m = i; if (l < size && worse(l, m)) m = l; if (r < size && worse(r, m)) m = r; if (m === i) return; swap(i, m); i = m; } }
-	function up(i) { while (i > 0) { var p = (i - 1) >> 1; if (!worse(i, p)) return; swap(i, p); i = p; } }
+	var n = slots.length, hs = new Float64Array(Math.max(k, 1)), hi = new Int32Array(Math.max(k, 1)), size = 0;
+	var ok = targetInv > 0;
 	for (var j = 0; j < n; j++) {
-		var s = slots[j], off = s * len, dot = 0;
-		for (var i = 0; i < len; i++) dot += target[i] * vectors[off + i];
-		var score = dot * targetInv * invNorm[s];
-		if (!(targetInv > 0) || !(invNorm[s] > 0)) score = 0;
+		var s = slots[j], inv = invNorm[s];
+		var score = ok && inv > 0 ? dotAt(vectors, s * len, target, len) * targetInv * inv : 0;
 		var id = ids[s];
-		if (size < k) { hs[size] = score; hi[size] = id; hsl[size] = s; size++; up(size - 1); }
-		else if (k > 0 && (score > hs[0] || (score === hs[0] && id > hi[0]))) { hs[0] = score; hi[0] = id; hsl[0] = s; down(0); }
+		if (size < k) { hs[size] = score; hi[size] = id; size++; heapUp(hs, hi, size - 1); }
+		else if (k > 0 && (score > hs[0] || (score === hs[0] && id > hi[0]))) { hs[0] = score; hi[0] = id; heapDown(hs, hi, size, 0); }
 	}
 	var out = [];
 	for (var q = 0; q < size; q++) out.push({ id: hi[q], score: hs[q] });

@@ -205,21 +205,23 @@ function vectorHit(c: VectorCache, slot: number, q: SpectrumListQuery): Hit | nu
 	return hit;
 }
 
-/** Tags whose name is close to the query (the tag list is small). */
-async function matchingTagIds(text: string): Promise<number[]> {
-	const tags: { id: number; name: string }[] = await db()('tags').select('id', 'name');
-	if (!tags.length) return [];
-	return new Fuse(tags, { keys: ['name'], threshold: 0.3, ignoreLocation: true, minMatchCharLength: 2 }).search(text).map((h) => Number(h.item.id));
+let tagList: { seq: number; tags: { id: number; name: string }[] } = { seq: -1, tags: [] };
+
+/** Tags whose name is close to the query (the tag list is small; re-read when the Library changed). */
+async function matchingTagIds(c: VectorCache, text: string): Promise<number[]> {
+	if (tagList.seq !== c.seq) tagList = { seq: c.seq, tags: await db()('tags').select('id', 'name') };
+	if (!tagList.tags.length) return [];
+	return new Fuse(tagList.tags, { keys: ['name'], threshold: 0.3, ignoreLocation: true, minMatchCharLength: 2 }).search(text).map((h) => Number(h.item.id));
 }
 
 /** Ranked hits of a fuzzy name search among the slots passing `accept` (see the module comment). */
-async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text: string): Promise<Hit[]> {
+async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text: string, tagCache: Map<number, string[]>): Promise<Hit[]> {
 	const grams = trigramsOf(text);
 	if (!grams.length) return [];
 	const need = Math.max(1, Math.ceil(grams.length * MIN_SHARE));
 	const cands = c.gramHits(grams, need, accept);
 	const bySlot = new Set(cands.map((x) => x.slot));
-	for (const id of await spectrumIdsTagged(await matchingTagIds(text))) {
+	for (const id of await spectrumIdsTagged(await matchingTagIds(c, text))) {
 		const slot = c.slotOf.get(id);
 		if (slot !== undefined && !bySlot.has(slot) && accept(slot)) {
 			cands.push({ slot, hits: need });
@@ -229,6 +231,8 @@ async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text
 	cands.sort((a, b) => b.hits - a.hits || c.ids[b.slot] - c.ids[a.slot]);
 	const top = cands.slice(0, RERANK);
 	const tags = await tagsOfSpectra(top.map((x) => c.ids[x.slot]));
+	for (const [id, t] of tags) tagCache.set(id, t);
+	for (const x of top) if (!tagCache.has(c.ids[x.slot])) tagCache.set(c.ids[x.slot], []);
 	const docs = top.map((x) => ({ slot: x.slot, name: c.names[x.slot], synonyms: c.synonyms[x.slot], cas: c.cas[x.slot] ?? '', tags: tags.get(c.ids[x.slot]) ?? [] }));
 	const fused = new Fuse(docs, FUSE_OPTIONS).search(text);
 	const seen = new Set<number>();
@@ -242,8 +246,9 @@ async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text
 }
 
 /** Shapes one page of rows. */
-async function itemsOf(caller: Caller, rows: SpectrumRow[], hits?: Map<number, Hit>) {
-	const tags = await tagsOfSpectra(rows.map((r) => Number(r.id)));
+async function itemsOf(caller: Caller, rows: SpectrumRow[], hits?: Map<number, Hit>, known?: Map<number, string[]>) {
+	const missing = rows.map((r) => Number(r.id)).filter((id) => !known?.has(id));
+	const tags = new Map([...(known ?? []), ...(missing.length ? await tagsOfSpectra(missing) : [])]);
 	return rows.map((row) => {
 		const h = hits?.get(Number(row.id));
 		return {
@@ -274,8 +279,9 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 	const c = await vectorCache();
 	const accept = await slotFilter(c, caller, f);
 	let hits: Hit[];
+	const knownTags = new Map<number, string[]>();
 	if (fuzzy) {
-		hits = await fuzzyHits(c, accept, text);
+		hits = await fuzzyHits(c, accept, text, knownTags);
 		if (needVector)
 			hits = hits.flatMap((h) => {
 				const v = vectorHit(c, h.slot!, q);
@@ -293,5 +299,5 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 	}
 	const page = hits.slice(q.offset, q.offset + q.limit);
 	const rows = await summariesByIds(caller.reader, page.map((h) => h.id), { deleted: 'include' });
-	return { total: hits.length, items: await itemsOf(caller, rows, new Map(page.map((h) => [h.id, h]))) };
+	return { total: hits.length, items: await itemsOf(caller, rows, new Map(page.map((h) => [h.id, h])), knownTags) };
 }
