@@ -6,7 +6,8 @@ const config = {
 	preprocess: vitePreprocess(),
 	kit: {
 		// BUILD_DIR lets parallel work build into its own folder (default: build).
-		adapter: adapter({ out: process.env.BUILD_DIR ?? 'build' }),
+		// precompress: .br and .gz copies of the static assets, served by adapter-node when the client accepts them.
+		adapter: adapter({ out: process.env.BUILD_DIR ?? 'build', precompress: true }),
 		// CSRF: our own guard in src/lib/server/csrf.ts (bearer-token scripts may POST files without an Origin).
 		csrf: { trustedOrigins: ['*'] },
 		// A strict CSP the app itself passes: SvelteKit hashes its own inline bootstrap script.

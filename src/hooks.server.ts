@@ -8,6 +8,7 @@ import { csrfGuard } from '$lib/server/csrf';
 import { bodyLimitGuard, markOutage, outageGuard, truncateForLog } from '$lib/server/guards';
 import { OUTAGE_MESSAGE } from '$lib/server/db/outage';
 import { closeParsePool } from '$lib/server/parse/pool';
+import { compressionHandle } from '$lib/server/compression';
 
 /** Security headers on every response; the CSP itself comes from svelte.config.js (kit.csp). */
 const securityHeaders: Handle = async ({ event, resolve }) => {
@@ -21,8 +22,9 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 
 // csrfGuard replaces SvelteKit's origin check (svelte.config.js trusts '*'); it lets bearer requests
 // through, which is safe because authHandle never falls back to the cookie when a bearer header is sent.
+// compressionHandle first: it compresses the final answer of everything after it (gzip/br for HTML and JSON).
 // outageGuard comes before authHandle so that a database outage during sign-in checks is a 503 too.
-export const handle = sequence(securityHeaders, bodyLimitGuard, outageGuard, csrfGuard, authHandle);
+export const handle = sequence(compressionHandle, securityHeaders, bodyLimitGuard, outageGuard, csrfGuard, authHandle);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	if (markOutage(event, error)) {

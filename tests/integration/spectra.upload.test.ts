@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/index';
-import { findSpectrumById } from '../../src/lib/server/db/spectra';
+import { findSpectrumById, withFileBytes } from '../../src/lib/server/db/spectra';
 import { spectrumData } from '../../src/lib/server/services/spectraExport';
 import { uploadSpectrumFile } from '../../src/lib/server/services/spectraUpload';
 import { apiFailure, external, fixture, localsOf, resetSpectraWorld, rowCounts, upload, uploadPath } from './spectraTestKit';
@@ -33,7 +33,7 @@ describe('real instrument exports (MANIFEST.md)', () => {
 		expect(r.warnings.map((w) => w.code)).toContain('block_not_spectrum');
 		const row = (await findSpectrumById(s.id))!;
 		expect(row.file_sha256).toMatch(/^[0-9a-f]{64}$/);
-		expect(row.file_bytes.byteLength).toBe(readFileSync(external('jcamp/uv-vis-thf-link-absorbance-plus-variance.jdx')).byteLength);
+		expect((await withFileBytes(row)).file_bytes.byteLength).toBe(readFileSync(external('jcamp/uv-vis-thf-link-absorbance-plus-variance.jdx')).byteLength);
 		expect(row.search_vector.byteLength).toBe(911 * 4); // 190–1100 nm at 1 nm, Float32
 	});
 

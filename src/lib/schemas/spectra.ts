@@ -101,6 +101,6 @@ export const spectrumListQuerySchema = z.object({
 	sort: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.enum(SORTS).optional()),
 	dir: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.enum(['asc', 'desc']).default('asc')),
 	limit: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().int().min(1).max(500).default(50)),
-	offset: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().int().min(0).default(0))
+	offset: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().int().min(0).max(1_000_000).default(0))
 });
 export type SpectrumListQuery = z.infer<typeof spectrumListQuerySchema>;

@@ -50,6 +50,6 @@ export function exportSpectrum(row: SpectrumRow, format: string | null) {
 	const base = `${safeName(row.name)}-${row.id}`;
 	if (format === 'csv' || format === null || format === '') return { body: exportCsv(s, metadataOf(row)), type: 'text/csv; charset=utf-8', filename: `${base}.csv` };
 	if (format === 'jcamp' || format === 'jdx') return { body: exportJcamp(s, metadataOf(row)), type: 'chemical/x-jcamp-dx; charset=utf-8', filename: `${base}.jdx` };
-	if (format === 'original') return { body: new Uint8Array(row.file_bytes), type: 'application/octet-stream', filename: row.file_name };
+	if (format === 'original') return { body: new Uint8Array(row.file_bytes ?? new Uint8Array()), type: 'application/octet-stream', filename: row.file_name };
 	throw new ApiError(400, 'invalid', 'format: one of csv, jcamp, original', { field: 'format' });
 }

@@ -1,7 +1,11 @@
 /**
  * Upload pipeline, persisting part: one transaction per file — duplicate check (409 naming the
- * existing spectrum), one `spectra` row per prepared spectrum, its tags and a `create` revision.
- * A failure rolls everything back. Used by POST /api/spectra and by the demo seed alike.
+ * existing spectrum), the original file stored once (`spectrum_files`), one `spectra` row per
+ * prepared spectrum with its points, vector and name trigrams in bulk inserts (batched below
+ * max_allowed_packet), its tags and a `create` revision. A failure rolls everything back. Storage
+ * is bounded before anything is written: at most WINDOWSILL_MAX_SPECTRA_PER_FILE spectra per file
+ * (default 500) and WINDOWSILL_MAX_WRITE_BYTES bytes per request (default 256 MiB).
+ * Used by POST /api/spectra and by the demo seed alike.
  */
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
@@ -9,10 +13,9 @@ import { vectorToBuffer } from '../../spectra/grid';
 import type { ParseIssue } from '../../spectra/types';
 import { isValidCas, type UploadMetadata } from '../../schemas/spectra';
 import { ApiError } from '../http';
-import { findSpectraBySha, findSpectrumById, insertSpectrum, type NewSpectrumRow } from '../db/spectra';
+import { findSpectraBySha, findSpectrumSummariesByIds, insertSpectra, insertSpectrumFile, nextChangeSeq, type NewSpectrumRow } from '../db/spectra';
 import { float64ToBuffer } from '../db/spectraBlobs';
-import { insertRevision } from '../db/spectrumRevisions';
-import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db/tags';
+import { cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
 import { assertFiniteSpectra } from './spectraFinite';
 import { spectrumToApi } from './spectraView';
@@ -69,7 +72,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		y_normalised: float64ToBuffer(s.norm.y),
 		y_unit: s.norm.yUnit,
 		point_count: s.norm.x.length,
-		file_bytes: Buffer.from(input.bytes),
+		file_id: null,
 		file_name: input.filename.slice(0, 255),
 		file_sha256: sha256,
 		block_index: s.blockIndex,
@@ -89,17 +92,48 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 	};
 }
 
+/** The rows of every prepared spectrum of one upload (file_id still to be set). */
+export function spectrumRowsFor(input: StoreInput, sha256: string): NewSpectrumRow[] {
+	return input.spectra.map((s, i) => rowFor(input, s, i, sha256, input.warnings));
+}
+
 /** SHA-256 of the file bytes, hex. */
 export const sha256Hex = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
 
+/** Storage limits (environment, read per call so tests and operators can set them). */
+export function storageLimits(env: Record<string, string | undefined> = process.env) {
+	const num = (v: string | undefined, d: number) => (v && Number.isFinite(Number(v)) && Number(v) > 0 ? Number(v) : d);
+	return { maxSpectraPerFile: num(env.WINDOWSILL_MAX_SPECTRA_PER_FILE, 500), maxWriteBytes: num(env.WINDOWSILL_MAX_WRITE_BYTES, 256 * 1024 * 1024) };
+}
+
+/** Bytes a store would write: the file once, then per spectrum its four Float64 series, the vector and the metadata. */
+export function bytesToWrite(input: Pick<StoreInput, 'bytes' | 'spectra'>): number {
+	let n = input.bytes.byteLength;
+	for (const s of input.spectra) n += 8 * (2 * s.raw.x.length + 2 * s.norm.x.length) + 4 * s.derived.searchVector.length + 4096;
+	return n;
+}
+
+/** Refuses, before any write, a file with too many spectra or one that would write too many bytes. */
+export function checkStorageLimits(input: Pick<StoreInput, 'bytes' | 'spectra' | 'filename'>, limits = storageLimits()): void {
+	if (input.spectra.length > limits.maxSpectraPerFile)
+		throw new ApiError(422, 'too_many_spectra', `file: ${input.filename} holds ${input.spectra.length} spectra (blocks or columns); at most ${limits.maxSpectraPerFile} are stored per file — pick some with metadata "columns" or split the file`, { field: 'file', count: input.spectra.length, limit: limits.maxSpectraPerFile });
+	const bytes = bytesToWrite(input);
+	if (bytes > limits.maxWriteBytes)
+		throw new ApiError(413, 'too_large', `file: storing ${input.filename} would write ${(bytes / 1048576).toFixed(1)} MiB; at most ${(limits.maxWriteBytes / 1048576).toFixed(0)} MiB are written per upload`, { field: 'file', bytes, limit: limits.maxWriteBytes });
+}
+
 /**
  * Stores every prepared spectrum of one file in one transaction.
- * @throws ApiError 409 when the group already holds this file (names the existing spectrum)
+ * @throws ApiError 409 when the group already holds this file (names the existing spectrum);
+ *   422 too many spectra, 413 too many bytes (nothing written)
  */
 export async function storeSpectra(conn: Knex, input: StoreInput) {
 	assertFiniteSpectra(input.spectra, input.filename);
+	checkStorageLimits(input);
 	const sha = sha256Hex(input.bytes);
 	const ids = await conn.transaction(async (trx) => {
+		// the change number first: every writer takes this one row lock first, so writers never deadlock
+		const seq = await nextChangeSeq(trx);
 		const existing = await findSpectraBySha(trx, input.groupId, sha);
 		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
 		if (clash && clash.visibility === 'private' && clash.owner_id !== input.ownerId)
@@ -110,17 +144,15 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 		const tagNames = cleanTags(input.meta.tags ?? []);
 		await insertMissingTags(trx, tagNames);
 		const tagIds = await findTagIds(trx, tagNames);
-		const out: number[] = [];
-		for (let i = 0; i < input.spectra.length; i++) {
-			const id = await insertSpectrum(trx, rowFor(input, input.spectra[i], i, sha, input.warnings));
-			await addSpectrumTags(trx, id, tagIds);
-			await insertRevision(trx, { spectrumId: id, version: 1, action: 'create', userId: input.ownerId, changes: null });
-			out.push(id);
-		}
+		const fileId = await insertSpectrumFile(trx, { groupId: input.groupId, sha256: sha, fileName: input.filename, bytes: input.bytes });
+		const rows = spectrumRowsFor(input, sha).map((r) => ({ ...r, file_id: fileId }));
+		const out = await insertSpectra(trx, rows, seq);
+		if (tagIds.length) await trx('spectrum_tags').insert(out.flatMap((id) => tagIds.map((tag_id) => ({ spectrum_id: id, tag_id }))));
+		await trx('spectrum_revisions').insert(out.map((id) => ({ spectrum_id: id, version: 1, action: 'create', user_id: input.ownerId, changes: null })));
 		return out;
 	});
 	const tags = cleanTags(input.meta.tags ?? []);
 	const items = [];
-	for (const id of ids) items.push(spectrumToApi((await findSpectrumById(id, conn))!, tags));
+	for (const row of await findSpectrumSummariesByIds(ids, conn)) items.push(spectrumToApi(row, tags));
 	return { items, warnings: input.warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
 }

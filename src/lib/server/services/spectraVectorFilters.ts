@@ -79,3 +79,53 @@ export function transparentAbove(row: VectorRow, v: Float32Array, wavelengthNm: 
 	for (let i = start; i < v.length; i++) if (v[i] > 0.05 * max) return false;
 	return true;
 }
+
+/**
+ * Per-vector facts that make "absorbs at" (without thresholds) and "transparent above" O(1) per
+ * spectrum: the maximum, the last index above 5 % of it, the last measured (non-zero) index and the
+ * last measured index with T < 0.5. `transparentAboveFromFacts` gives exactly `transparentAbove`.
+ */
+export interface VectorFacts {
+	max: number;
+	lastAbove5pct: number;
+	lastMeasured: number;
+	lastBelowHalf: number;
+}
+
+/** The facts of one vector (`v` may be a view into a larger array). */
+export function vectorFacts(v: Float32Array): VectorFacts {
+	let max = 0;
+	for (let i = 0; i < v.length; i++) if (v[i] > max) max = v[i];
+	let lastAbove5pct = -1;
+	let lastMeasured = -1;
+	let lastBelowHalf = -1;
+	for (let i = 0; i < v.length; i++) {
+		if (v[i] > 0.05 * max) lastAbove5pct = i;
+		if (v[i] !== 0) {
+			lastMeasured = i;
+			if (v[i] < 0.5) lastBelowHalf = i;
+		}
+	}
+	return { max, lastAbove5pct, lastMeasured, lastBelowHalf };
+}
+
+/** `transparentAbove` from the facts of the vector. */
+export function transparentAboveFromFacts(kind: string, f: VectorFacts, wavelengthNm: number): boolean {
+	const start = Math.max(0, Math.ceil(wavelengthNm - GRID_FROM_NM));
+	if (kind === 'transmission') return f.lastBelowHalf < start && f.lastMeasured >= start;
+	if (kind !== 'absorption') return false;
+	return f.max > 0 && f.lastAbove5pct < start;
+}
+
+/** `absorbsAt` with the vector's maximum known (no pass over the vector). */
+export function absorbsAtWithMax(row: VectorRow, v: Float32Array, max: number, rule: AbsorbsAtRule): boolean {
+	if (row.kind !== 'absorption') return false;
+	if (rule.minAbsorbance === undefined && rule.minEpsilon === undefined) {
+		const y = vectorAt(v, rule.wavelengthNm);
+		return max > 0 && y >= 0.1 * max;
+	}
+	const at = absorptionAt(row, v, rule.wavelengthNm);
+	const okA = rule.minAbsorbance !== undefined && at.absorbance !== undefined && at.absorbance >= rule.minAbsorbance;
+	const okE = rule.minEpsilon !== undefined && at.epsilon !== undefined && at.epsilon >= rule.minEpsilon;
+	return okA || okE;
+}

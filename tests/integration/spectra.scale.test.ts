@@ -1,0 +1,268 @@
+/**
+ * The Library at scale, in the small: side tables and chunking, storage caps, the change counter
+ * that keeps per-process indexes right, the one-pass top-k similarity (same answers as the spectra
+ * core's rankSimilar within 1e-6), the vector filters from precomputed facts, paging errors.
+ * Spectra are invented test data (Gaussian bands); the reference for similarity is the core's
+ * cosineSimilarity/rankSimilar, the reference for A = ε·c·l is Beer–Lambert (IUPAC Gold Book, "absorbance").
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, db } from '../../src/lib/server/db/index';
+import { findSpectrumById, listSpectrumSummaries, withFileBytes } from '../../src/lib/server/db/spectra';
+import { callerOf } from '../../src/lib/server/services/spectraAccess';
+import { bufferToFloat64, POINT_CHUNK_VALUES, FILE_CHUNK_BYTES, statementBudget } from '../../src/lib/server/db/spectraBlobs';
+import { spectrumListQuerySchema } from '../../src/lib/schemas/spectra';
+import { zodToApiError } from '../../src/lib/server/http';
+import { searchSpectra } from '../../src/lib/server/services/spectraSearch';
+import { similarSpectra } from '../../src/lib/server/services/spectraSimilar';
+import { VectorCache } from '../../src/lib/server/services/spectraVectorCache';
+import { absorbsAt, absorbsAtWithMax, transparentAbove, transparentAboveFromFacts, vectorFacts } from '../../src/lib/server/services/spectraVectorFilters';
+import { stopSimilarityWorker, topKInProcess, topKInWorker } from '../../src/lib/server/services/similarityKernel';
+import { rankSimilar } from '../../src/lib/spectra/similarity';
+import { bufferToVector, SEARCH_LENGTH } from '../../src/lib/spectra/grid';
+import { apiFailure, csvOf, gauss, localsOf, resetSpectraWorld, upload } from './spectraTestKit';
+
+const ids: Record<string, number> = {};
+beforeAll(async () => {
+	await resetSpectraWorld();
+	const add = async (key: string, name: string, f: (x: number) => number, meta: Record<string, unknown> = {}) =>
+		(ids[key] = (await upload('member', `scale-${key}.csv`, csvOf('wavelength (nm),epsilon (M-1 cm-1)', f), { name, ...meta })).items[0].id);
+	await add('a', 'Lanternfish violet dye', (x) => gauss(x, 420, 20, 15000), { part: 'photocatalyst', synonyms: ['LV-3'] });
+	await add('b', 'Quayside amber dye', (x) => gauss(x, 470, 25, 11000), { part: 'photocatalyst' });
+	await add('c', 'Saltmarsh enone', (x) => gauss(x, 330, 15, 9000), { part: 'substrate', cas: '50-00-0' });
+	await add('d', 'Shingle ester', (x) => gauss(x, 280, 12, 5000) + gauss(x, 430, 30, 800), { part: 'substrate' });
+	await add('e', 'Dune blue catalyst', (x) => gauss(x, 425, 22, 14000) + gauss(x, 300, 15, 20000), { part: 'photocatalyst', tags: ['seaside'] });
+});
+afterAll(async () => {
+	await stopSimilarityWorker();
+	await closeDb();
+});
+
+const member2 = (params: Record<string, string>) => searchSpectra(localsOf('member2'), spectrumListQuerySchema.parse({ group: 'spx-a', limit: '100', ...params }));
+
+/** Deterministic pseudo-random numbers (mulberry32). */
+function rng(seed: number) {
+	let s = seed >>> 0;
+	return () => {
+		s = (s + 0x6d2b79f5) >>> 0;
+		let t = s;
+		t = Math.imul(t ^ (t >>> 15), t | 1);
+		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+	};
+}
+
+function randomVectors(n: number, seed: number): Float32Array[] {
+	const r = rng(seed);
+	return Array.from({ length: n }, (_, k) => {
+		const v = new Float32Array(SEARCH_LENGTH);
+		const c = 200 + r() * 600;
+		const w = 5 + r() * 60;
+		const h = k % 7 === 0 ? 0 : 0.01 + r() * 3e4; // every 7th all zeros (outside the grid)
+		for (let i = 0; i < v.length; i++) v[i] = h * Math.exp(-0.5 * ((190 + i - c) / w) ** 2) + (r() < 0.3 ? 0 : r() * h * 0.01);
+		return v;
+	});
+}
+
+describe('storage: side tables, chunks, one file per upload', () => {
+	it('a 70,000-point CSV of 3 columns (> 1 MiB): one file row in chunks, points in 64 k chunks, exact round trip', async () => {
+		const lines = ['wavelength (nm),A one,A two,A three'];
+		for (let i = 0; i < 70_000; i++) {
+			const x = 250 + i * 0.005;
+			lines.push(`${x.toFixed(3)},${gauss(x, 400, 30, 1).toPrecision(9)},${gauss(x, 450, 20, 0.8).toPrecision(9)},${gauss(x, 500, 25, 0.6).toPrecision(9)}`);
+		}
+		const text = lines.join('\n') + '\n';
+		const bytes = new TextEncoder().encode(text);
+		expect(bytes.byteLength).toBeGreaterThan(FILE_CHUNK_BYTES);
+		const r = await upload('member', 'scale-long.csv', bytes, { part: 'substrate' });
+		expect(r.items).toHaveLength(3);
+		const k = db();
+		const rows = await k('spectra').whereIn('id', r.items.map((i) => i.id)).select('file_id');
+		expect(new Set(rows.map((x: { file_id: number }) => x.file_id)).size).toBe(1); // stored once, referenced by all three
+		const fileId = rows[0].file_id;
+		const [{ n: chunks }] = await k('spectrum_file_chunks').where({ file_id: fileId }).count({ n: '*' });
+		expect(Number(chunks)).toBe(Math.ceil(bytes.byteLength / FILE_CHUNK_BYTES));
+		const row = (await findSpectrumById(r.items[1].id))!;
+		expect(Buffer.compare((await withFileBytes(row)).file_bytes, Buffer.from(bytes))).toBe(0);
+		const [{ n: pointRows }] = await k('spectrum_points').where({ spectrum_id: row.id, series: 1 }).count({ n: '*' });
+		expect(Number(pointRows)).toBe(Math.ceil(70_000 / POINT_CHUNK_VALUES));
+		const y = bufferToFloat64(row.y_original);
+		expect(y.length).toBe(70_000);
+		// the second column as written in the file, exactly (toPrecision(9) text → the same double)
+		for (const i of [0, 12_345, 65_535, 65_536, 69_999]) expect(y[i]).toBe(Number(gauss(250 + i * 0.005, 450, 20, 0.8).toPrecision(9)));
+	});
+
+	it('every insert statement stays below max_allowed_packet (hex BLOBs counted twice)', async () => {
+		const k = db();
+		const [[{ p }]] = await k.raw('SELECT @@max_allowed_packet AS p');
+		const budget = await statementBudget(k);
+		expect(budget).toBeLessThanOrEqual(Number(p) / 4);
+		let largest = 0;
+		const onQuery = (q: { sql: string; bindings?: unknown[] }) => {
+			let n = q.sql.length;
+			for (const b of q.bindings ?? []) n += b instanceof Uint8Array ? 2 * b.byteLength + 3 : String(b).length + 2;
+			largest = Math.max(largest, n);
+		};
+		k.on('query', onQuery);
+		try {
+			const lines = ['wavelength (nm),absorbance'];
+			for (let i = 0; i < 140_000; i++) lines.push(`${(200 + i * 0.004).toFixed(3)},${gauss(200 + i * 0.004, 420, 40, 1).toPrecision(7)}`);
+			await upload('member', 'scale-140k.csv', lines.join('\n'), { part: 'substrate' });
+		} finally {
+			k.off('query', onQuery);
+		}
+		expect(largest).toBeGreaterThan(4 * 140_000); // the points went in as a few multi-row statements…
+		expect(largest).toBeLessThan(Number(p)); // …each below the server's packet limit
+	}, 180_000);
+
+	it('caps: too many spectra per file → 422, too many bytes per upload → 413, nothing written', async () => {
+		const k = db();
+		const count = async () => Number((await k('spectra').count({ n: '*' }))[0].n) + Number((await k('spectrum_files').count({ n: '*' }))[0].n);
+		const before = await count();
+		const lines = ['wavelength (nm),A1,A2,A3,A4'];
+		for (let x = 300; x <= 500; x++) lines.push(`${x},0.1,0.2,0.3,0.4`);
+		process.env.WINDOWSILL_MAX_SPECTRA_PER_FILE = '3';
+		try {
+			const e = await apiFailure(upload('member', 'scale-4col.csv', lines.join('\n')));
+			expect(e.status).toBe(422);
+			expect(e.extra.field).toBe('file');
+			expect(e.message).toMatch(/4 spectra/);
+		} finally {
+			delete process.env.WINDOWSILL_MAX_SPECTRA_PER_FILE;
+		}
+		process.env.WINDOWSILL_MAX_WRITE_BYTES = '10000';
+		try {
+			const e = await apiFailure(upload('member', 'scale-4col.csv', lines.join('\n')));
+			expect(e.status).toBe(413);
+			expect(e.extra.field).toBe('file');
+		} finally {
+			delete process.env.WINDOWSILL_MAX_WRITE_BYTES;
+		}
+		expect(await count()).toBe(before);
+	});
+});
+
+describe('the change counter keeps every process index right', () => {
+	it('two independent indexes (two app servers) both see an upload and an edit at once', async () => {
+		const one = new VectorCache();
+		const two = new VectorCache();
+		await one.refresh();
+		await two.refresh();
+		const r = await upload('member', 'scale-new.csv', csvOf('wavelength (nm),absorbance', (x) => gauss(x, 610, 15, 0.9)), { part: 'product', name: 'Tidepool red' });
+		const id = r.items[0].id;
+		expect(one.slotOf.has(id)).toBe(false);
+		await one.refresh();
+		await two.refresh();
+		for (const c of [one, two]) {
+			const s = c.slotOf.get(id)!;
+			expect(c.ids[s]).toBe(id);
+			expect(c.names[s]).toBe('Tidepool red');
+			expect(c.max[s]).toBeCloseTo(0.9, 3);
+		}
+		// soft delete through the repository: both indexes mark it deleted after their next refresh
+		const { setSpectrumDeleted } = await import('../../src/lib/server/services/spectraEdit');
+		await setSpectrumDeleted(localsOf('member'), String(id), true);
+		await one.refresh();
+		await two.refresh();
+		expect(one.deleted[one.slotOf.get(id)!]).toBe(1);
+		expect(two.deleted[two.slotOf.get(id)!]).toBe(1);
+	});
+});
+
+describe('search', () => {
+	it('misspelt name first, synonym, tag; CAS-shaped queries match CAS exactly and never fuzzily', async () => {
+		expect((await member2({ q: 'lanternfsh violett' })).items[0].id).toBe(ids.a);
+		expect((await member2({ q: 'lv3' })).items[0].id).toBe(ids.a);
+		expect((await member2({ q: 'seaside' })).items.map((i) => i.id)).toContain(ids.e);
+		expect((await member2({ q: '50-00-0' })).items.map((i) => i.id)).toEqual([ids.c]);
+		expect((await member2({ q: '50-00-1' })).total).toBe(0);
+	});
+	it('as the picker asks: q + part + limit, ranked, with an exact total', async () => {
+		const r = await member2({ q: 'dye', part: 'photocatalyst', limit: '20' });
+		expect(r.items.map((i) => i.id).sort()).toEqual([ids.a, ids.b].sort());
+		expect(r.total).toBe(2);
+	});
+	it('absorbs at 425 nm with ε ≥ 10,000: the index path agrees with the vector rule and pages like the full list', async () => {
+		const all = await member2({ absorbsAt: '425', minEpsilon: '10000', sort: 'name' });
+		expect(all.items.map((i) => i.id)).toEqual([ids.e, ids.a]); // "Dune …" before "Lanternfish …"
+		expect(all.total).toBe(2);
+		const p2 = await member2({ absorbsAt: '425', minEpsilon: '10000', sort: 'name', limit: '1', offset: '1' });
+		expect(p2.items.map((i) => i.id)).toEqual([ids.a]);
+		expect(p2.total).toBe(2);
+		// ε at 425 nm of the invented band 15000·exp(−(5/20)²/2) (Gaussian, test data)
+		expect(p2.items[0].epsilonAt!).toBeCloseTo(15000 * Math.exp(-0.5 * (5 / 20) ** 2), 0);
+	});
+	it('paging out of range → 400 naming the field', () => {
+		for (const [field, value] of [['limit', '0'], ['limit', '501'], ['limit', 'ten'], ['offset', '-1'], ['offset', '1e300'], ['offset', '2.5']] as const) {
+			const r = spectrumListQuerySchema.safeParse({ [field]: value });
+			expect(r.success).toBe(false);
+			if (r.success) continue;
+			const e = zodToApiError(r.error);
+			expect(e.status).toBe(400);
+			expect(e.extra.field).toBe(field);
+		}
+	});
+});
+
+describe('vector filters from precomputed facts give the same answers as the full rules', () => {
+	it('absorbsAt and transparentAbove on 300 random vectors × 12 wavelengths × 4 rules', { timeout: 60_000 }, () => {
+		const vs = randomVectors(300, 5);
+		let checked = 0;
+		for (const [k, v] of vs.entries()) {
+			const row = { kind: k % 5 === 0 ? 'transmission' : 'absorption', y_unit: k % 2 ? 'epsilon' : 'absorbance', concentration_m: k % 3 ? 1e-5 : null, path_cm: 1 };
+			const facts = vectorFacts(v);
+			for (const wl of [190, 250, 300.5, 350, 420, 450.25, 500, 600, 700, 900, 1099.5, 1100]) {
+				for (const rule of [{}, { minAbsorbance: 0.1 }, { minEpsilon: 5000 }, { minAbsorbance: 0.05, minEpsilon: 20000 }]) {
+					expect(absorbsAtWithMax(row, v, facts.max, { wavelengthNm: wl, ...rule })).toBe(absorbsAt(row, v, { wavelengthNm: wl, ...rule }));
+					checked++;
+				}
+				expect(transparentAboveFromFacts(row.kind, facts, wl)).toBe(transparentAbove(row, v, wl));
+			}
+		}
+		expect(checked).toBe(300 * 12 * 4);
+	});
+});
+
+describe('similarity: one pass, top-k by a heap, same answers as rankSimilar within 1e-6', () => {
+	it('2,000 random vectors, 5 targets, k = 1, 10, 50: in-process and worker agree with the core', { timeout: 120_000 }, async () => {
+		const vs = randomVectors(2000, 9);
+		const n = vs.length;
+		const vectors = new Float32Array(new SharedArrayBuffer(n * SEARCH_LENGTH * 4));
+		const inv = new Float64Array(new SharedArrayBuffer(n * 8));
+		const idArr = new Int32Array(new SharedArrayBuffer(n * 4));
+		vs.forEach((v, s) => {
+			vectors.set(v, s * SEARCH_LENGTH);
+			let ss = 0;
+			for (const x of v) ss += x * x;
+			inv[s] = ss > 0 ? 1 / Math.sqrt(ss) : 0;
+			idArr[s] = 100_000 + s;
+		});
+		for (const t of [1, 2, 7, 500, 1999]) {
+			const slots = Int32Array.from({ length: n }, (_, s) => s).filter((s) => s !== t);
+			// the core's answer, candidates newest (highest id) first as the Library lists them
+			const cands = Array.from(slots, (s) => ({ id: idArr[s], vector: vs[s] })).reverse();
+			let ss = 0;
+			for (const x of vs[t]) ss += x * x;
+			for (const k of [1, 10, 50]) {
+				const want = rankSimilar(vs[t], cands, k);
+				const job = { vectors, len: SEARCH_LENGTH, target: vs[t], targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: inv, ids: idArr, k };
+				for (const got of [topKInProcess(job), await topKInWorker(job)]) {
+					expect(got).toHaveLength(want.length);
+					for (let i = 0; i < want.length; i++) {
+						expect(Math.abs(got[i].score - want[i].score)).toBeLessThanOrEqual(1e-6);
+					}
+					expect(got.map((g) => g.id)).toEqual(want.map((w) => w.id));
+				}
+			}
+		}
+	});
+	it('GET /api/spectra/similar answers as the core ranks the stored vectors', async () => {
+		const r = await similarSpectra(localsOf('member'), String(ids.a), '4');
+		// the answer as it was computed before the index: every visible row of the kind, newest first, ranked by the core
+		const caller = await callerOf(localsOf('member'));
+		const rows = (await listSpectrumSummaries(caller.reader, { kind: 'absorption', withVector: true })).filter((x) => Number(x.id) !== ids.a);
+		const target = bufferToVector((await findSpectrumById(ids.a))!.search_vector);
+		const want = rankSimilar(target, rows.map((x) => ({ id: Number(x.id), vector: bufferToVector(x.search_vector) })), 4);
+		expect(r.items.map((i) => i.id)).toEqual(want.map((w) => w.id));
+		for (let i = 0; i < want.length; i++) expect(Math.abs(r.items[i].similarity - want[i].score)).toBeLessThanOrEqual(1e-6);
+	});
+});
