@@ -22,6 +22,7 @@ import { prepareSpectra } from '../src/lib/server/services/spectraPrepare';
 import { sha256Hex, storeSpectra } from '../src/lib/server/services/spectraStore';
 import { derivedColumns } from '../src/lib/server/services/spectraDerive';
 import { float64ToBuffer } from '../src/lib/server/db/spectraBlobs';
+import { insertSpectrumFile, updateSpectrumIfVersion } from '../src/lib/server/db/spectra';
 import { vectorToBuffer } from '../src/lib/spectra/grid';
 import type { UploadMetadata } from '../src/lib/schemas/spectra';
 
@@ -162,19 +163,21 @@ function csvText(s: DemoSpectrum): string {
 async function refreshInPlace(knex: Knex, id: number, s: DemoSpectrum, bytes: Uint8Array, sha: string): Promise<void> {
 	const { spectra, warnings } = prepareSpectra(bytes, s.file, s.meta);
 	const p = spectra[0];
-	const row = await knex('spectra').where({ id }).first('version');
-	await knex('spectra')
-		.where({ id })
-		.update({
+	await knex.transaction(async (trx) => {
+		const row = await trx('spectra').where({ id }).first('version', 'group_id');
+		// the file once in its own table, points and vector in theirs (db/spectra.ts), the change counter bumped
+		const fileId = await insertSpectrumFile(trx, { groupId: Number(row.group_id), sha256: sha, fileName: s.file, bytes });
+		await updateSpectrumIfVersion(trx, id, Number(row.version), {
 			x_original: float64ToBuffer(p.raw.x), y_original: float64ToBuffer(p.raw.y), x_unit_original: p.raw.xUnit, y_unit_original: p.raw.yUnit,
 			x_nm: float64ToBuffer(p.norm.x), y_normalised: float64ToBuffer(p.norm.y), y_unit: p.norm.yUnit, point_count: p.norm.x.length,
-			file_bytes: Buffer.from(bytes), file_sha256: sha, search_vector: Buffer.from(vectorToBuffer(p.derived.searchVector)),
+			file_id: fileId, file_sha256: sha, search_vector: Buffer.from(vectorToBuffer(p.derived.searchVector)),
 			lambda_max_nm: p.derived.lambdaMaxNm, value_at_max: p.derived.valueAtMax, edge_nm: p.derived.edgeNm,
 			cutoff10_nm: p.derived.cutoff10Nm, cutoff50_nm: p.derived.cutoff50Nm, peaks: JSON.stringify(p.derived.peaks), ...derivedColumns(p.derived),
 			cas: s.meta.cas ?? null, concentration_m: s.meta.concentrationM ?? null, path_cm: s.meta.pathCm ?? null, notes: s.meta.notes ?? null,
-			excited_state_potentials: JSON.stringify(s.meta.excitedStatePotentials ?? []), version: Number(row.version) + 1, updated_at: knex.fn.now(),
+			excited_state_potentials: JSON.stringify(s.meta.excitedStatePotentials ?? []),
 			warnings: JSON.stringify(warnings.map(({ code, message, line }) => ({ code, message, line })))
-		});
+		} as never);
+	});
 }
 
 const USER = { lead: 'lead@windowsill.test', member: 'member@windowsill.test', outsider: 'outsider@windowsill.test' } as const;

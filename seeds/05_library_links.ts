@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DERIVE_VERSION, derivedColumns, deriveForLibrary } from '../src/lib/server/services/spectraDerive';
 import { bufferToFloat64 } from '../src/lib/server/db/spectraBlobs';
+import { findSpectrumById, updateSpectrumIfVersion } from '../src/lib/server/db/spectra';
 import { vectorToBuffer } from '../src/lib/spectra/grid';
 import type { NormalisedSpectrum } from '../src/lib/spectra/types';
 
@@ -24,14 +25,16 @@ async function rederiveOldRows(knex: Knex): Promise<number> {
 	for (;;) {
 		const rows = await knex('spectra')
 			.whereRaw("derived_extra IS NULL OR COALESCE(JSON_VALUE(derived_extra, '$.deriveVersion'), 0) < ?", [DERIVE_VERSION])
-			.select('id', 'kind', 'x_nm', 'y_normalised', 'y_unit', 'concentration_m', 'path_cm').limit(50);
+			.select('id', 'version', 'kind', 'y_unit', 'concentration_m', 'path_cm').limit(50);
 		if (!rows.length) return done;
 		for (const r of rows) {
-			const spec: NormalisedSpectrum = { kind: r.kind, x: bufferToFloat64(r.x_nm), y: bufferToFloat64(r.y_normalised), yUnit: r.y_unit };
+			// points live in spectrum_points (db/spectra.ts); the update bumps the change counter for the Library index
+			const full = await findSpectrumById(Number(r.id), knex);
+			if (!full) continue;
+			const spec: NormalisedSpectrum = { kind: r.kind, x: bufferToFloat64(full.x_nm), y: bufferToFloat64(full.y_normalised), yUnit: r.y_unit };
 			const { derived } = deriveForLibrary(spec, { concentrationM: r.concentration_m, pathCm: r.path_cm });
-			await knex('spectra')
-				.where({ id: r.id })
-				.update({
+			await knex.transaction((trx) =>
+				updateSpectrumIfVersion(trx, Number(r.id), Number(r.version), {
 					search_vector: Buffer.from(vectorToBuffer(derived.searchVector)),
 					lambda_max_nm: derived.lambdaMaxNm,
 					value_at_max: derived.valueAtMax,
@@ -40,7 +43,8 @@ async function rederiveOldRows(knex: Knex): Promise<number> {
 					cutoff50_nm: derived.cutoff50Nm,
 					peaks: JSON.stringify(derived.peaks),
 					...derivedColumns(derived)
-				});
+				} as never)
+			);
 			done++;
 		}
 	}
