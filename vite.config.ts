@@ -14,6 +14,8 @@ export default defineConfig({
 		// Integration tests share one real MariaDB test database: run files one after another.
 		fileParallelism: false,
 		testTimeout: 30_000,
+		// The source-tree parser process starts through tsx (seconds on a busy machine); the built app's starts at once.
+		env: { PARSE_TIMEOUT_MS: process.env.PARSE_TIMEOUT_MS ?? '120000' },
 		hookTimeout: 60_000
 	}
 });
