@@ -216,14 +216,14 @@ describe('recompute and report', () => {
 		expect(report.methods).toContain('2.0 h');
 		const html = renderPlanReportHtml(report, { plan: '/plans/1', pdf: '/x' });
 		expect(html).toContain(lampName);
-		expect(html).toContain('model (emission model');
+		expect(html).toContain('model: emission model');
 		expect(html).toContain('institutional safety officer');
 		const pdf = await renderPlanReportPdf(report);
 		expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
 		const text = (await new PDFParse({ data: new Uint8Array(pdf) }).getText()).text.replace(/\s+/g, ' ');
 		expect(text).toContain(lampName);
 		expect(text).toContain('Photon flux into the vessel and its basis');
-		expect(text).toContain('model (emission model × optical power × coupling factor)');
+		expect(text).toContain('model: emission model × optical power × coupling factor');
 		expect(text).toContain('Consult your institutional safety officer before operating any light source.');
 		expect((await rejects(planReportFor(outsider, String(plan.id), null))).status).toBe(404);
 	});

@@ -7,6 +7,7 @@
  */
 import { z } from 'zod';
 import { computeAbsorberMatrix } from '$lib/irradiation/absorberMatrix';
+import { findGroupById } from '$lib/server/db/groups';
 import { listLamps } from '$lib/server/db/lamps';
 import { groupSpectrumSolvents, listGroupAbsorberCurves } from '$lib/server/db/matrixAbsorbers';
 import { listPlanInputs, listPlanPairs, type PlanState } from '$lib/server/db/plans';
@@ -89,6 +90,7 @@ export async function groupMatrix(locals: App.Locals, groupIdParam: string | und
 	const groupId = /^\d{1,10}$/.test(groupIdParam ?? '') ? Number(groupIdParam) : 0;
 	if (!groupId) throw new ApiError(404, 'not_found', 'No such group.');
 	await requireGroupRole(locals, groupId, 'viewer');
+	if (!(await findGroupById(groupId))) throw new ApiError(404, 'not_found', 'No such group.');
 	const started = performance.now();
 	const c = await conditionsFor(groupId, raw);
 	const caller = await callerOf(locals);

@@ -81,10 +81,10 @@ export function windowBody(inputs: Inputs): Inputs {
 /** How a lamp's photon flux is known: its latest calibration (with date) or the emission model. */
 export async function photonFluxBasisOf(lampId: number): Promise<{ basis: 'model' | 'actinometry' | 'radiometry'; method: string | null; measuredAt: string | null; label: string }> {
 	const [latest] = await listLampCalibrations(lampId);
-	if (!latest) return { basis: 'model', method: null, measuredAt: null, label: 'model (emission model × optical power × coupling factor)' };
+	if (!latest) return { basis: 'model', method: null, measuredAt: null, label: 'model: emission model × optical power × coupling factor' };
 	const date = new Date(latest.measuredAt).toISOString().slice(0, 10);
 	const basis = /radiomet|thermopile|photodiode|power ?meter/i.test(latest.method) ? 'radiometry' : 'actinometry';
-	return { basis, method: latest.method, measuredAt: date, label: `${basis} (${latest.method}) on ${date}` };
+	return { basis, method: latest.method, measuredAt: date, label: `${basis}: ${latest.method}, ${date}` };
 }
 
 /** Computes the Window-finder answer for the decided conditions and adds the frozen summary of the chosen lamp. */

@@ -6,6 +6,7 @@
  * (planReportHtml.ts, planReportPdf.ts). Items the plan does not record are marked so, never invented.
  */
 import { SAFETY_DEFERRAL_TEXT } from '$lib/irradiation/cautions';
+import { nameInSentence } from '$lib/irradiation/names';
 
 type R = Record<string, unknown>;
 const o = (v: unknown): R => (v && typeof v === 'object' && !Array.isArray(v) ? (v as R) : {});
@@ -92,8 +93,7 @@ function reactionText(inputs: R, names: Map<number, string>): string | null {
 		return `photocatalytic: ${names.get(Number(pc.spectrumId)) ?? `spectrum #${pc.spectrumId}`} (${molar(num(pc.concentrationM))}) absorbs and is not consumed`;
 	}
 	if (r.type === 'reversible') return `reversible photoreaction (product ${names.get(Number(o(r.product).spectrumId)) ?? `spectrum #${o(r.product).spectrumId}`}, Φ back = ${num(r.quantumYieldBack) ?? '—'})`;
-	if (r.type === 'direct') return 'direct photolysis of the substrate';
-	return null;
+	return 'direct photolysis of the substrate';
 }
 
 /** Builds the report of a plan (or of one of its frozen revisions). */
@@ -123,13 +123,19 @@ export function buildPlanReport(src: ReportSource): PlanReport {
 	const reaction = reactionText(inputs, names);
 	const windows = arr(results.windows).map((w) => `${w.fromNm}–${w.toNm} nm`).join(', ');
 	const peakNm = num(lamp.peakNm);
-	const absorbanceAtPeak = (() => {
+	// "Absorbance at λ_irr": for a polychromatic lamp the wavelength that matters is where the absorber takes up the
+	// most photons, argmax of emission(λ)·(1 − 10^−A(λ)) on the plan's 1 nm curves, not the emission peak.
+	const atIrradiation = (() => {
 		const x = arr(curves.x) as unknown as number[];
 		const y = arr(curves.substrateAbsorbance) as unknown as number[];
-		if (!peakNm || !x.length) return null;
-		let best = 0;
-		for (let i = 1; i < x.length; i++) if (Math.abs(x[i] - peakNm) < Math.abs(x[best] - peakNm)) best = i;
-		return y[best] ?? null;
+		const em = arr(arr(curves.lamps).find((l) => Number(l.id) === Number(lamp.lampId))?.emission) as unknown as number[];
+		if (!x.length || !y.length || !em.length) return null;
+		let best = -1, bestV = 0;
+		for (let i = 0; i < x.length; i++) {
+			const v = (em[i] ?? 0) * (1 - 10 ** -(y[i] ?? 0));
+			if (v > bestV) { bestV = v; best = i; }
+		}
+		return best < 0 ? null : { wavelengthNm: x[best], absorbance: y[best] };
 	})();
 
 	const item = (label: string, value: string | null | undefined, recorded = value !== null && value !== undefined && value !== ''): ChecklistItem => ({
@@ -144,7 +150,7 @@ export function buildPlanReport(src: ReportSource): PlanReport {
 		item('Electrical power', null),
 		item('Photon flux into the vessel and its basis', incident !== null ? `${sci(incident)} einstein s⁻¹ (${basis})` : null),
 		item('Absorbed photon flux (intended absorber)', absorbed !== null ? `${sci(absorbed)} einstein s⁻¹ (${fractionAbsorbed !== null ? `${(100 * fractionAbsorbed).toFixed(1)} % of the incident photons` : ''})` : null),
-		item('Absorbance at the lamp peak, fraction absorbed', absorbanceAtPeak !== null && peakNm ? `A(${Math.round(peakNm)} nm) = ${absorbanceAtPeak.toFixed(3)} over ${pathCm} cm${fractionAbsorbed !== null ? `; fraction of the lamp's photons absorbed by it ${(100 * fractionAbsorbed).toFixed(1)} %` : ''}` : null),
+		item('Absorbance at the irradiation wavelength, fraction absorbed', atIrradiation ? `A(${Math.round(atIrradiation.wavelengthNm)} nm) = ${atIrradiation.absorbance.toFixed(3)} over ${pathCm} cm, where the absorber takes up most of the lamp's photons${fractionAbsorbed !== null ? `; fraction of the incident photons it absorbs ${(100 * fractionAbsorbed).toFixed(1)} %` : ''}` : null),
 		item('Distance and geometry', lamp.distanceNote ? String(lamp.distanceNote) : null),
 		item('Vessel', vesselText(inputs, pathCm)),
 		item('Vessel material and wall thickness', wall.name ? `${wall.name}, ${num(d.wall && o(d.wall).thicknessMm) ?? wall.thicknessMm} mm` : null),
@@ -164,7 +170,7 @@ export function buildPlanReport(src: ReportSource): PlanReport {
 	];
 
 	const methods = [
-		`Irradiations were carried out with ${lampName}${peakNm ? ` (emission maximum ${Math.round(peakNm)} nm${num(lamp.fwhmNm) ? `, FWHM ${num(lamp.fwhmNm)} nm` : ''})` : ''}${lamp.distanceNote ? `, ${lamp.distanceNote}` : ''}.`,
+		`Irradiations were carried out with the ${nameInSentence(lampName)}${peakNm ? ` (emission maximum ${Math.round(peakNm)} nm${num(lamp.fwhmNm) ? `, FWHM ${num(lamp.fwhmNm)} nm` : ''})` : ''}${lamp.distanceNote ? `, ${lamp.distanceNote}` : ''}.`,
 		incident !== null ? `The photon flux entering the solution was ${sci(incident)} einstein s⁻¹ (${basis}).` : '',
 		`A solution of ${substrate.name ?? 'the substrate'} (${molar(num(substrate.concentrationM))}${others.length ? `; with ${others.join(', ')}` : ''}) in ${String(solvent.name ?? 'the solvent').toLowerCase()}${volumeL !== null ? ` (${Number((volumeL * 1000).toPrecision(4))} mL)` : ''} was irradiated in a vessel of ${String(wall.name ?? 'the chosen wall material').toLowerCase()} (wall ${num(o(d.wall).thicknessMm) ?? wall.thicknessMm} mm; ${vesselText(inputs, pathCm)})${temperature !== null ? ` at ${temperature} °C` : ''}${timeS !== null ? ` for ${duration(timeS)}` : ''}.`,
 		absorbed !== null ? `Under these conditions the intended absorber takes up an estimated ${sci(absorbed)} einstein s⁻¹ (${fractionAbsorbed !== null ? `${(100 * fractionAbsorbed).toFixed(0)} %` : '—'} of the incident photons; inner-filter model, IUPAC 2007).` : ''
