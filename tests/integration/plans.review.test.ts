@@ -239,3 +239,37 @@ describe('audit log access', () => {
 		expect(mine.every((e) => e.groupId === groupId)).toBe(true);
 	});
 });
+
+describe('saving from a form', () => {
+	it('reads the save form (hidden inputs JSON and key, decision fields) and a resubmitted form makes no second plan', async () => {
+		const { planBodyFromForm } = await import('../../src/lib/server/services/plans');
+		const f = new FormData();
+		f.set('title', 'Form-saved plan');
+		f.set('inputs', JSON.stringify(inputs()));
+		f.set('idempotencyKey', crypto.randomUUID());
+		f.set('lampId', String(lampId));
+		f.set('irradiationTimeMin', '45');
+		f.set('safetyMeasures', 'Shield on.');
+		const body = planBodyFromForm(f);
+		expect(body).toMatchObject({ title: 'Form-saved plan', decision: { lampId, irradiationTimeS: 2700, safetyMeasures: 'Shield on.' } });
+		const a = await createPlan(member, body);
+		made.push(a.plan.id);
+		const b = await createPlan(member, planBodyFromForm(f));
+		expect([a.created, b.created, b.plan.id]).toEqual([true, false, a.plan.id]);
+		const bad = new FormData();
+		bad.set('title', 'x');
+		bad.set('inputs', '{not json');
+		expect((await rejects(createPlan(member, planBodyFromForm(bad)))).extra.field).toBe('inputs');
+		f.set('irradiationTimeMin', 'soon');
+		f.set('idempotencyKey', crypto.randomUUID());
+		expect((await rejects(createPlan(member, planBodyFromForm(f)))).extra.field).toBe('decision.irradiationTimeS');
+	});
+
+	it('without a key, the same save twice within seconds is one plan', async () => {
+		const body = { title: 'Keyless double click', inputs: inputs(), decision: { lampId } };
+		const a = await createPlan(member, body);
+		made.push(a.plan.id);
+		const b = await createPlan(member, body);
+		expect([a.created, b.created, b.plan.id]).toEqual([true, false, a.plan.id]);
+	});
+});

@@ -174,3 +174,11 @@ export async function updatePlanIfVersion(id: number, version: number, patch: Pl
 	if (expectState) q.whereIn('state', expectState);
 	return q.update(row);
 }
+
+/** A plan this author saved with the same title and inputs in the last `seconds` (the guard for saves without a key). */
+export async function findRecentTwin(ownerId: string, title: string, inputsJson: string, seconds = 10, k: Knex = db()): Promise<PlanRow | null> {
+	const since = new Date(Date.now() - seconds * 1000);
+	const rows = await k('plans').where({ owner_id: ownerId, title }).where('created_at', '>=', since).orderBy('id', 'desc').limit(5).select('id', 'inputs');
+	const twin = rows.find((r: { inputs: unknown }) => JSON.stringify(json(r.inputs)) === inputsJson);
+	return twin ? findPlan(Number(twin.id), k) : null;
+}

@@ -6,7 +6,6 @@
  * (planReportHtml.ts, planReportPdf.ts). Items the plan does not record are marked so, never invented.
  */
 import { SAFETY_DEFERRAL_TEXT } from '$lib/irradiation/cautions';
-import { nameInSentence } from '$lib/irradiation/names';
 
 type R = Record<string, unknown>;
 const o = (v: unknown): R => (v && typeof v === 'object' && !Array.isArray(v) ? (v as R) : {});
@@ -77,6 +76,13 @@ export function duration(s: number | null): string {
 	return `${(s / 86400).toFixed(1)} d`;
 }
 
+const fmtA = (a: number) => (a >= 10 ? a.toPrecision(3).replace(/\.0+$/, '') : a.toFixed(3));
+/** Beer–Lambert penetration depth for 90 % absorption, l₉₀ = l/A (REFERENCE.md §8: l₉₀ = 1/(ε c)), when it is shorter than the path. */
+const penetration = (a: number, pathCm: number | null) => {
+	if (!pathCm || !(a > 1)) return '';
+	const mm = (10 * pathCm) / a;
+	return `; 90 % of that light is absorbed within the first ${mm >= 1 ? mm.toFixed(1) : mm >= 0.01 ? mm.toFixed(2) : mm.toExponential(1)} mm`;
+};
 const molar = (c: number | null) => (c === null ? '—' : c >= 0.1 ? `${Number(c.toPrecision(3))} M` : c >= 1e-4 ? `${Number((c * 1000).toPrecision(3))} mM` : `${Number((c * 1e6).toPrecision(3))} µM`);
 
 function vesselText(inputs: R, pathCm: number | null): string {
@@ -150,7 +156,7 @@ export function buildPlanReport(src: ReportSource): PlanReport {
 		item('Electrical power', null),
 		item('Photon flux into the vessel and its basis', incident !== null ? `${sci(incident)} einstein s⁻¹ (${basis})` : null),
 		item('Absorbed photon flux (intended absorber)', absorbed !== null ? `${sci(absorbed)} einstein s⁻¹ (${fractionAbsorbed !== null ? `${(100 * fractionAbsorbed).toFixed(1)} % of the incident photons` : ''})` : null),
-		item('Absorbance at the irradiation wavelength, fraction absorbed', atIrradiation ? `A(${Math.round(atIrradiation.wavelengthNm)} nm) = ${atIrradiation.absorbance.toFixed(3)} over ${pathCm} cm, where the absorber takes up most of the lamp's photons${fractionAbsorbed !== null ? `; fraction of the incident photons it absorbs ${(100 * fractionAbsorbed).toFixed(1)} %` : ''}` : null),
+		item('Absorbance at the irradiation wavelength, fraction absorbed', atIrradiation ? `A(${Math.round(atIrradiation.wavelengthNm)} nm) = ${fmtA(atIrradiation.absorbance)} over ${pathCm} cm, where the absorber takes up most of the lamp's photons${penetration(atIrradiation.absorbance, pathCm)}${fractionAbsorbed !== null ? `; fraction of the incident photons it absorbs ${(100 * fractionAbsorbed).toFixed(1)} %` : ''}` : null),
 		item('Distance and geometry', lamp.distanceNote ? String(lamp.distanceNote) : null),
 		item('Vessel', vesselText(inputs, pathCm)),
 		item('Vessel material and wall thickness', wall.name ? `${wall.name}, ${num(d.wall && o(d.wall).thicknessMm) ?? wall.thicknessMm} mm` : null),
@@ -164,13 +170,13 @@ export function buildPlanReport(src: ReportSource): PlanReport {
 		item('Stirring', null),
 		item('Quantum yield Φ', phi !== null ? `${phi} (assumed for the planned times)` : null),
 		item('Irradiation time', timeS !== null ? `${duration(timeS)} (${Math.round(timeS)} s) planned${num(lamp.timeTo90PctS) ? `; model time to 90 % conversion ${duration(num(lamp.timeTo90PctS))}` : ''}` : null),
-		item('Residence time and flow rate', num(flow.reactorVolumeMl) ? `reactor ${flow.reactorVolumeMl} mL at ${flow.flowRateMlPerMin} mL min⁻¹ (τ = ${Number(((Number(flow.reactorVolumeMl) / Number(flow.flowRateMlPerMin)) * 60).toPrecision(3))} s)` : null),
+		item('Residence time and flow rate', !num(flow.reactorVolumeMl) ? 'batch irradiation (no flow reactor in this plan)' : num(flow.reactorVolumeMl) ? `reactor ${flow.reactorVolumeMl} mL at ${flow.flowRateMlPerMin} mL min⁻¹ (τ = ${Number(((Number(flow.reactorVolumeMl) / Number(flow.flowRateMlPerMin)) * 60).toPrecision(3))} s)` : null),
 		item('Excitation window', windows || 'none found under these conditions'),
 		item('Lamp age and warm-up', null)
 	];
 
 	const methods = [
-		`Irradiations were carried out with the ${nameInSentence(lampName)}${peakNm ? ` (emission maximum ${Math.round(peakNm)} nm${num(lamp.fwhmNm) ? `, FWHM ${num(lamp.fwhmNm)} nm` : ''})` : ''}${lamp.distanceNote ? `, ${lamp.distanceNote}` : ''}.`,
+		`Irradiations were carried out with the lamp “${lampName}”${peakNm ? ` (emission maximum ${Math.round(peakNm)} nm${num(lamp.fwhmNm) ? `, FWHM ${num(lamp.fwhmNm)} nm` : ''})` : ''}${lamp.distanceNote ? `, ${lamp.distanceNote}` : ''}.`,
 		incident !== null ? `The photon flux entering the solution was ${sci(incident)} einstein s⁻¹ (${basis}).` : '',
 		`A solution of ${substrate.name ?? 'the substrate'} (${molar(num(substrate.concentrationM))}${others.length ? `; with ${others.join(', ')}` : ''}) in ${String(solvent.name ?? 'the solvent').toLowerCase()}${volumeL !== null ? ` (${Number((volumeL * 1000).toPrecision(4))} mL)` : ''} was irradiated in a vessel of ${String(wall.name ?? 'the chosen wall material').toLowerCase()} (wall ${num(o(d.wall).thicknessMm) ?? wall.thicknessMm} mm; ${vesselText(inputs, pathCm)})${temperature !== null ? ` at ${temperature} °C` : ''}${timeS !== null ? ` for ${duration(timeS)}` : ''}.`,
 		absorbed !== null ? `Under these conditions the intended absorber takes up an estimated ${sci(absorbed)} einstein s⁻¹ (${fractionAbsorbed !== null ? `${(100 * fractionAbsorbed).toFixed(0)} %` : '—'} of the incident photons; inner-filter model, IUPAC 2007).` : ''

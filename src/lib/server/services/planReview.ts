@@ -48,7 +48,7 @@ async function transition(plan: PlanRow, actorId: string, to: PlanState, from: P
 			from
 		);
 		if (!n) throw staleVersion();
-		if (extra.comment || to !== 'submitted') {
+		{
 			const kind: PlanCommentKind = to === 'submitted' ? 'submitted' : to === 'approved' ? 'approved' : 'returned';
 			await insertPlanComment({ planId: plan.id, authorId: actorId, kind, body: extra.comment || (to === 'approved' ? 'Approved.' : ''), planVersion: plan.version + 1 }, trx);
 		}

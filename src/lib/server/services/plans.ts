@@ -6,7 +6,7 @@
 import { planCreateSchema, planListQuerySchema, planPatchSchema } from '$lib/schemas/plans';
 import { audit } from '$lib/server/db/audit';
 import { db } from '$lib/server/db';
-import { findPlan, findPlanByIdempotencyKey, insertPlan, listPlans, updatePlanIfVersion, type PlanRow, type PlanState } from '$lib/server/db/plans';
+import { findPlan, findPlanByIdempotencyKey, findRecentTwin, insertPlan, listPlans, updatePlanIfVersion, type PlanRow, type PlanState } from '$lib/server/db/plans';
 import { ApiError, forbidden, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
 import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
@@ -57,6 +57,11 @@ export async function createPlan(locals: App.Locals, body: unknown): Promise<{ p
 	const decision = await completeDecision(partial, inputs0, groupId, preliminary ? bestLampOf(preliminary) : null);
 	const inputs = applyDecision(inputs0, decision);
 	// The first pass already holds these numbers when the decision kept the inputs' conditions.
+	// Without a key, a second identical save by the same author within 10 s is taken as a double click.
+	if (!idempotencyKey) {
+		const twin = await findRecentTwin(user.id, title, JSON.stringify(inputs));
+		if (twin) return { plan: twin, created: false };
+	}
 	const results =
 		preliminary && JSON.stringify(inputs) === JSON.stringify(inputs0) ? await withDecided(locals, preliminary, decision) : await computePlanResults(locals, inputs, decision);
 	try {
@@ -143,3 +148,44 @@ export function planToApi(p: PlanRow, withResults = true) {
 
 /** Whether the caller reviews plans of this group: a lead of it or a site admin. */
 export const isReviewerRole = (role: string | null) => role === 'admin' || roleAtLeast(role as 'lead', 'lead');
+
+/**
+ * The POST /api/plans body from a save form (for a page action such as the Window finder's "Save as irradiation
+ * plan"): `title`, `inputs` (the POST /api/window body as JSON), `query`, `idempotencyKey` (a hidden UUID generated
+ * once per form), optional `groupId` and decision fields `lampId`, `irradiationTimeMin`, `temperatureC`,
+ * `safetyMeasures`, `notes`. Unreadable numbers stay as text, so the schema names the field.
+ */
+export function planBodyFromForm(form: FormData): Record<string, unknown> {
+	const get = (k: string) => {
+		const v = form.get(k);
+		return typeof v === 'string' ? v : undefined;
+	};
+	const num = (k: string) => {
+		const v = get(k)?.trim();
+		return v === undefined || v === '' ? undefined : Number.isFinite(Number(v)) ? Number(v) : v;
+	};
+	let inputs: unknown = get('inputs');
+	try {
+		inputs = inputs === undefined ? undefined : JSON.parse(inputs as string);
+	} catch {
+		// left as text: the schema answers "inputs must be the Window finder request"
+	}
+	const minutes = num('irradiationTimeMin');
+	const decision = Object.fromEntries(
+		Object.entries({
+			lampId: num('lampId'),
+			irradiationTimeS: typeof minutes === 'number' ? minutes * 60 : minutes,
+			temperatureC: num('temperatureC'),
+			safetyMeasures: get('safetyMeasures') || undefined,
+			notes: get('notes') || undefined
+		}).filter(([, v]) => v !== undefined)
+	);
+	return {
+		title: get('title'),
+		inputs,
+		...(get('query') ? { query: get('query') } : {}),
+		...(get('idempotencyKey') ? { idempotencyKey: get('idempotencyKey') } : {}),
+		...(num('groupId') !== undefined ? { groupId: num('groupId') } : {}),
+		...(Object.keys(decision).length ? { decision } : {})
+	};
+}

@@ -1,12 +1,12 @@
 /**
- * The matrix's colour scale (our own): six steps of the app's "lumen" ramp from paper to deep amber, one step per
+ * The matrix's colour scale (our own): six steps of an amber ramp from paper to deep amber (the app's "lumen" colours), one step per
  * factor of ~3 below the largest cell (a log scale: absorbed photon fluxes span decades). Every cell also prints its
  * number, so the colour is never the only carrier of the value.
  */
 export const SCALE = [
 	{ bg: '#f7f4ec', fg: '#4c5f87' },
-	{ bg: '#fdf6e7', fg: '#1b2436' },
-	{ bg: '#fae8c0', fg: '#1b2436' },
+	{ bg: '#fbeccb', fg: '#1b2436' },
+	{ bg: '#f7d999', fg: '#1b2436' },
 	{ bg: '#f2c36a', fg: '#1b2436' },
 	{ bg: '#e9a23b', fg: '#1b2436' },
 	{ bg: '#b8731a', fg: '#ffffff' },
