@@ -33,6 +33,12 @@ function convertY(raw: RawSpectrum, c: number | undefined, l: number | undefined
 		}
 		return -Math.log10(t);
 	};
+	// reflectance is never read as absorbance or transmittance, and nothing else is read as reflectance
+	if (raw.kind === 'reflectance' || u === 'reflectance' || u === 'reflectance-percent') {
+		if (raw.kind !== 'reflectance' || (u !== 'reflectance' && u !== 'reflectance-percent')) return undefined;
+		for (let i = 0; i < n; i++) y[i] = u === 'reflectance-percent' ? raw.y[i] / 100 : raw.y[i];
+		return { y, yUnit: 'reflectance' as const };
+	}
 	if (raw.kind === 'absorption') {
 		for (let i = 0; i < n; i++) {
 			const v = raw.y[i];
@@ -63,6 +69,19 @@ function convertY(raw: RawSpectrum, c: number | undefined, l: number | undefined
 }
 
 /**
+ * The uniform grid k·step that lies inside [first, last]: every grid point from + i·step (computed the way
+ * resampleToGrid computes it) is ≥ first and ≤ last, so no resampled value falls outside the data.
+ */
+export function gridInside(first: number, last: number, step: number): { from: number; to: number } {
+	let k = Math.ceil(first / step - 1e-9);
+	while (k * step < first) k++;
+	const from = k * step;
+	let n = Math.floor((last - from) / step + 1e-9) + 1;
+	while (n > 0 && from + (n - 1) * step > last) n--;
+	return { from, to: from + (n - 1) * step };
+}
+
+/**
  * Normalises a parsed spectrum. Never throws.
  * @returns ok with x in nm strictly ascending; errors for impossible concentration/path or unit/kind pairs
  */
@@ -73,8 +92,12 @@ export function normaliseSpectrum(raw: RawSpectrum, opts: NormaliseOptions = {})
 		const l = opts.pathCm ?? raw.metadata.pathCm;
 		if (c !== undefined && !(Number.isFinite(c) && c > 0)) return err('invalid_concentration', `concentrationM must be a positive number (got ${c})`);
 		if (l !== undefined && !(Number.isFinite(l) && l > 0)) return err('invalid_path', `pathCm must be a positive number (got ${l})`);
+		if (c !== undefined && l !== undefined && !(Number.isFinite(1 / (c * l)) && c * l > 0))
+			return err('invalid_concentration', `concentrationM × pathCm = ${c} × ${l} is too small to divide by (ε would be infinite)`);
 		const conv = convertY(raw, c, l, warnings);
 		if (!conv) return err('unit_kind_mismatch', `y unit ${raw.yUnit} cannot be a ${raw.kind} spectrum`);
+		for (let i = 0; i < conv.y.length; i++)
+			if (!Number.isFinite(conv.y[i])) return err('not_finite', `y = ${raw.y[i]} (${raw.yUnit})${raw.lines?.[i] ? ` on line ${raw.lines[i]}` : ` at point ${i + 1}`} is not finite after conversion to ${conv.yUnit}`);
 		const n = raw.x.length;
 		const xNm = new Float64Array(n);
 		for (let i = 0; i < n; i++) xNm[i] = raw.xUnit === 'um' ? raw.x[i] * 1000 : raw.xUnit === 'cm-1' ? 1e7 / raw.x[i] : raw.x[i];
@@ -83,9 +106,14 @@ export function normaliseSpectrum(raw: RawSpectrum, opts: NormaliseOptions = {})
 		let y: Float64Array = Float64Array.from(order, (i) => conv.y[i]);
 		for (let i = 1; i < x.length; i++) if (!(x[i] > x[i - 1])) return err('duplicate_x', `two points at ${x[i]} nm`);
 		if (raw.xUnit === 'cm-1') {
+			if (raw.kind === 'emission' && (conv.yUnit === 'relative')) {
+				// A spectral density per cm⁻¹ becomes one per nm: y_λ = y_ν̃ · |dν̃/dλ| = y_ν̃ · 10⁷/λ² (λ in nm).
+				for (let i = 0; i < x.length; i++) y[i] *= 1e7 / (x[i] * x[i]);
+				warnings.push({ severity: 'warning', code: 'wavenumber_density_converted', message: 'emission per cm⁻¹ converted to per nm (× 10⁷/λ²) before resampling' });
+			}
 			const step = wavenumberStepNm(x);
-			const from = Math.ceil(x[0] / step - 1e-9) * step;
-			const to = Math.floor(x[x.length - 1] / step + 1e-9) * step;
+			const { from, to } = gridInside(x[0], x[x.length - 1], step);
+			if (!(to >= from)) return err('too_few_points', 'the wavenumber range is too narrow to resample');
 			const yg = resampleToGrid(x, y, from, to, step);
 			x = Float64Array.from(yg, (_, i) => from + i * step);
 			y = yg;

@@ -68,7 +68,8 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 	const s = squash(raw);
 	if (/variance|stddev|std\.?dev|standarddeviation|^sd$|uncertainty|error|sigma/.test(s))
 		return { yUnit: 'relative', kind: 'absorption', notSpectrum: true };
-	if (/log.?(ε|epsilon|e\b|molarabs)|logε|logeps/.test(s)) return { yUnit: 'log-epsilon', kind: 'absorption' };
+	// log ε in any spelling: "Logarithm epsilon", "LOG(EPSILON)", "lg ε", "log10 eps", "log molar absorptivity"
+	if (/(log(arithm)?(10)?|lg)[-^]?(of)?(ε|epsilon|eps|e$|molar|extinction)/.test(s)) return { yUnit: 'log-epsilon', kind: 'absorption' };
 	if (/ε|epsilon|molarabs|extinctioncoef|m-1cm-1|l\/mol|lmol-1cm-1|m\^-1cm\^-1/.test(s))
 		return { yUnit: 'epsilon', kind: 'absorption' };
 	// reflectance is not transmittance: no hint (the preview asks the user)

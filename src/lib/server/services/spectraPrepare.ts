@@ -8,6 +8,8 @@ import { normaliseSpectrum } from '../../spectra/normalise';
 import type { NormalisedSpectrum, ParseIssue, RawSpectrum, SpectrumDerived } from '../../spectra/types';
 import type { UploadMetadata } from '../../schemas/spectra';
 import { ApiError } from '../http';
+import { statusForIssues } from '../../spectra/parse/issueStatus';
+import { parseLimitsFromEnv } from '../../spectra/parse/parseLimits';
 import { deriveForLibrary } from './spectraDerive';
 
 /** One spectrum ready to store. */
@@ -20,7 +22,11 @@ export interface PreparedSpectrum {
 }
 
 /** Codes of data that parse but cannot be physical (HTTP 422). */
-const PHYSICAL = new Set(['negative_transmittance', 'x_not_positive', 'duplicate_x_conflict', 'duplicate_x', 'invalid_concentration', 'invalid_path', 'transmittance_above_one', 'negative_k']);
+const PHYSICAL = new Set(['negative_transmittance', 'x_not_positive', 'duplicate_x_conflict', 'duplicate_x', 'invalid_concentration', 'invalid_path', 'transmittance_above_one', 'negative_k',
+	// delimited text (csvPhysical.ts): values that cannot be what the file or the caller says they are
+	'x_out_of_range', 'implausible_absorbance', 'implausible_transmittance', 'implausible_reflectance', 'implausible_epsilon']);
+/** Files that parse as tables but are not spectra (HTTP 415 with the reason). */
+const NOT_A_SPECTRUM = new Set(['unsupported_format', 'not_optical_table', 'optical_constants_table']);
 /** Codes that name a metadata field rather than a line. */
 const FIELD_OF: Record<string, string> = { invalid_concentration: 'concentrationM', invalid_path: 'pathCm', unit_kind_mismatch: 'yUnit', column_out_of_range: 'columns' };
 
@@ -34,8 +40,9 @@ export function uploadLimitBytes(env: Record<string, string | undefined> = proce
 export function issuesToApiError(filename: string, issues: ParseIssue[]): ApiError {
 	const errors = issues.filter((i) => i.severity === 'error');
 	const first = errors[0] ?? issues[0];
-	const status = first?.code === 'unsupported_format' ? 415 : errors.some((i) => PHYSICAL.has(i.code)) ? 422 : first?.code === 'internal_error' ? 400 : 400;
-	const code = status === 415 ? 'unsupported_file' : status === 422 ? 'physically_invalid' : 'bad_file';
+	const core = statusForIssues(errors);
+	const status = core === 400 && NOT_A_SPECTRUM.has(first?.code ?? '') ? 415 : core === 400 && errors.some((i) => PHYSICAL.has(i.code)) ? 422 : core;
+	const code = status === 413 ? 'too_large' : status === 415 ? 'unsupported_file' : status === 422 ? 'physically_invalid' : 'bad_file';
 	const where = first?.line && !/line \d/.test(first.message) ? ` (line ${first.line})` : '';
 	const message = `${filename}: ${first?.message ?? 'the file could not be read'}${where}`;
 	return new ApiError(status, code, message, {
@@ -70,7 +77,8 @@ export function prepareSpectra(bytes: Uint8Array, filename: string, meta: Upload
 		yUnit: meta.yUnit,
 		columns: meta.columns,
 		concentrationM: meta.concentrationM ?? undefined,
-		pathCm: meta.pathCm ?? undefined
+		pathCm: meta.pathCm ?? undefined,
+		limits: parseLimitsFromEnv(process.env)
 	});
 	if (!parsed.ok) throw issuesToApiError(filename, parsed.issues);
 	const warnings: ParseIssue[] = [...parsed.warnings];

@@ -14,6 +14,7 @@ import { float64ToBuffer } from '../db/spectraBlobs';
 import { insertRevision } from '../db/spectrumRevisions';
 import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
+import { assertFiniteSpectra } from './spectraFinite';
 import { spectrumToApi } from './spectraView';
 import { derivedColumns } from './spectraDerive';
 
@@ -27,7 +28,7 @@ export interface StoreInput {
 	warnings: ParseIssue[];
 }
 
-const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp' } as const;
+const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp', reflectance: 'photocatalyst' } as const;
 
 /** The name of the i-th spectrum of a file: metadata.names[i], metadata.name, the block/column title, the file name. */
 function nameFor(input: StoreInput, s: PreparedSpectrum, i: number): string {
@@ -73,6 +74,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		file_sha256: sha256,
 		block_index: s.blockIndex,
 		block_label: s.raw.label.slice(0, 200),
+		...(s.raw.timeS !== undefined ? { block_time_s: s.raw.timeS } : {}),
 		search_vector: Buffer.from(vectorToBuffer(s.derived.searchVector)),
 		lambda_max_nm: s.derived.lambdaMaxNm,
 		value_at_max: s.derived.valueAtMax,
@@ -95,10 +97,14 @@ export const sha256Hex = (bytes: Uint8Array) => createHash('sha256').update(byte
  * @throws ApiError 409 when the group already holds this file (names the existing spectrum)
  */
 export async function storeSpectra(conn: Knex, input: StoreInput) {
+	assertFiniteSpectra(input.spectra, input.filename);
 	const sha = sha256Hex(input.bytes);
 	const ids = await conn.transaction(async (trx) => {
 		const existing = await findSpectraBySha(trx, input.groupId, sha);
 		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
+		if (clash && clash.visibility === 'private' && clash.owner_id !== input.ownerId)
+			// Someone else's private spectrum: never name it or give its id.
+			throw new ApiError(409, 'duplicate', `${input.filename} is already stored in this group by another member who has not shared it; ask your group lead to have it shared with you`, { field: 'file' });
 		if (clash)
 			throw new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
 		const tagNames = cleanTags(input.meta.tags ?? []);

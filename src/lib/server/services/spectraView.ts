@@ -72,6 +72,8 @@ export function spectrumToApi(row: SpectrumRow, tags: string[] = [], extra: { ca
 		fileSha256: row.file_sha256,
 		blockIndex: row.block_index,
 		blockLabel: row.block_label,
+		/** Time series: the spectrum's time in seconds (rows-as-spectra tables), else null. */
+		blockTimeS: row.block_time_s ?? null,
 		version: row.version,
 		deletedAt: row.deleted_at ? new Date(row.deleted_at).toISOString() : null,
 		createdAt: new Date(row.created_at).toISOString(),

@@ -90,8 +90,11 @@ describe('cobalt-aquation-kinetics-20-blocks.jdx (JSpecView test data, aquation2
 			expect(raw.x.length).toBe(351);
 			expect(raw.xUnit).toBe('nm');
 		}
-		expect(r.value[0].metadata.title).toMatch(/\(t1\)$/);
-		expect(r.value[19].metadata.title).toMatch(/\(t20\)$/);
+		// Names: the file title once (the LINK block's ##TITLE), then the block label without the repeated title.
+		expect(r.value[0].metadata.title).toBe('Aquation of trans-[Co(en)2Cl2]+');
+		expect(r.value[0].label).toBe('t1');
+		expect(r.value[19].label).toBe('t20');
+		expect(r.value[19].metadata.blockTitle).toMatch(/\(t20\)$/);
 	});
 	it.each(bands.map((b, i) => [i, b]))('block %i: band maximum %i nm (±1 nm step)', (i, band) => {
 		// Reactant band region 570–700 nm: the growing product band (505 nm) tails into 560 nm by t8.

@@ -23,3 +23,24 @@ export function splitLines(text: string): string[] {
 export function stripBom(text: string): string {
 	return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 }
+
+/**
+ * Splits a line of JCAMP-DX AFFN numbers into fields: blanks, commas and ';' separate, and so does the sign of the
+ * next value (`1688010-4235230` is two values, JCAMP-DX 4.24 §5.5), except the sign of an exponent (`4.6e-05`).
+ */
+export function splitAffnFields(text: string): string[] {
+	const out: string[] = [];
+	let cur = '';
+	for (let i = 0; i < text.length; i++) {
+		const c = text[i];
+		if (c === ' ' || c === '\t' || c === ',' || c === ';') {
+			if (cur) out.push(cur);
+			cur = '';
+		} else if ((c === '+' || c === '-') && cur && !/[eE]$/.test(cur)) {
+			out.push(cur);
+			cur = c;
+		} else cur += c;
+	}
+	if (cur) out.push(cur);
+	return out;
+}

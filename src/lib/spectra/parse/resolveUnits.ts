@@ -5,6 +5,7 @@
 import type { ParseIssue, SpectrumKind, XUnit, YUnit } from '../types';
 import type { YUnitGuess } from '../units';
 import { checkXUnit } from './xUnitCheck';
+import { transmittanceLooksPercent } from './validate';
 
 /** Options the caller (upload form) may give; they override what the file says. */
 export interface ReadOptions {
@@ -19,13 +20,15 @@ const KIND_OF: Record<YUnit, SpectrumKind> = {
 	'log-epsilon': 'absorption',
 	transmittance: 'transmission',
 	'transmittance-percent': 'transmission',
+	reflectance: 'reflectance',
+	'reflectance-percent': 'reflectance',
 	relative: 'emission',
 	'W/nm': 'emission',
 	'W/m2/nm': 'emission',
 	counts: 'emission'
 };
 
-const DEFAULT_Y: Record<SpectrumKind, YUnit> = { absorption: 'absorbance', transmission: 'transmittance', emission: 'relative' };
+const DEFAULT_Y: Record<SpectrumKind, YUnit> = { absorption: 'absorbance', transmission: 'transmittance', emission: 'relative', reflectance: 'reflectance' };
 
 export interface ResolvedUnits {
 	kind: SpectrumKind;
@@ -62,8 +65,8 @@ export function resolveUnits(
 	if (!options.yUnit && yUnit === 'transmittance' && (!fileY || fileY.transmittanceScaleUnknown)) {
 		let max = -Infinity;
 		for (let i = 0; i < y.length; i++) if (y[i] > max) max = y[i];
-		// Fractions stay ≤ 1 (a little above with noise); %T of a real sample exceeds 1.5 somewhere (common practice).
-		if (max > 1.5) {
+		// Fractions stay ≤ 1 (a little above with noise); %T of a real sample is above 1.5 over much of it (common practice).
+		if (transmittanceLooksPercent(y)) {
 			yUnit = 'transmittance-percent';
 			warn('y_unit_inferred', `${where.what}: transmittance values up to ${max} read as %T`);
 		}
