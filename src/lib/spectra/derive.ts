@@ -94,7 +94,7 @@ export function deriveSpectrum(spec: NormalisedSpectrum, options: DeriveOptions 
 		longestBandValue: longest ? longest.value : null,
 		longestBandSaturated: longest ? longest.saturated : false,
 		bands: bands.map((b) => ({ wavelengthNm: b.wavelengthNm, value: b.value, saturated: b.saturated })),
-		edgeNm: spec.kind === 'absorption' ? findAbsorptionEdge(x, yUsable.map((v) => (Number.isFinite(v) ? v : 0)), 0.1, range) : null,
+		edgeNm: spec.kind === 'absorption' ? edgeOf(x, y, yUsable, longest, range) : null,
 		cutoff10Nm: isT ? findCutoff(x, y, 0.1) : null,
 		cutoff50Nm: isT ? findCutoff(x, y, 0.5) : null,
 		cutoffNotes: isT ? cutoffNotes(x, y) : {},
@@ -104,6 +104,20 @@ export function deriveSpectrum(spec: NormalisedSpectrum, options: DeriveOptions 
 		similarity: similarityStretch(spec, searchVector, excluded, st.noiseSigma),
 		searchVector
 	};
+}
+
+/**
+ * Absorption edge: walking from the longest-wavelength band towards longer λ, the first wavelength where the value
+ * falls below 10 % of that band's maximum (linear interpolation) — so a weak n→π* or d–d band sets the edge, not the
+ * strong band below it. Without a band: the core's edge rule (bands.ts findAbsorptionEdge).
+ */
+function edgeOf(x: Float64Array, y: Float64Array, yUsable: Float64Array, longest: { wavelengthNm: number; value: number; saturated: boolean } | null, range: RangeNm): number | null {
+	if (!longest || longest.saturated) return findAbsorptionEdge(x, yUsable.map((v) => (Number.isFinite(v) ? v : 0)), 0.1, range);
+	const level = 0.1 * longest.value;
+	let i = 0;
+	while (i < x.length && x[i] < longest.wavelengthNm) i++;
+	for (let k = i + 1; k < x.length; k++) if (y[k] < level) return x[k - 1] + ((level - y[k - 1]) * (x[k] - x[k - 1])) / (y[k] - y[k - 1]);
+	return null;
 }
 
 const pct = (t: number) => `${(t * 100).toFixed(t < 0.1 ? 1 : 0)} %`;

@@ -11,7 +11,7 @@ export type ReferenceStatus = 'verified' | 'computed' | 'from memory' | 'common 
 /** What each status means (shown as the badge's explanation). */
 export const STATUS_EXPLANATION: Record<ReferenceStatus, string> = {
 	verified: 'Verified: the number was read in the published source named beside it.',
-	computed: 'Computed here from the open dataset named beside it (method in the notes); real material varies with grade and lot.',
+	computed: 'Computed here from the open dataset named beside it (method in the notes); real samples vary with grade and lot.',
 	'from memory': 'From memory: the usual tabulated value, where the named source normally gives it, not re-read in that source. Treat it as a soft limit and prefer a measured curve.',
 	'common practice': 'Common practice: general laboratory practice with no single source.',
 	estimate: 'Estimate: approximate, derived by analogy or from a related property — verify with a measured curve.'

@@ -90,7 +90,7 @@ function usableEndsNm(x: ArrayLike<number>, excluded: { fromNm: number; toNm: nu
 }
 
 /** Version of the derivation rules; rows derived with an older one are re-derived by seeds/05_library_links.ts. */
-export const DERIVE_VERSION = 2;
+export const DERIVE_VERSION = 3;
 
 /** What the `derived_extra` JSON column holds (besides the `longest_band_nm` column). */
 export interface DerivedExtra {

@@ -63,6 +63,7 @@ const previewOf = (s: PreparedSpectrum, i: number) => ({
 	fromNm: s.norm.x[0],
 	toNm: s.norm.x[s.norm.x.length - 1],
 	lambdaMaxNm: s.derived.lambdaMaxNm,
+	longestWavelengthBandNm: s.derived.longestBandNm ?? null,
 	edgeNm: s.derived.edgeNm,
 	cutoff50Nm: s.derived.cutoff50Nm,
 	fileMetadata: s.raw.metadata,

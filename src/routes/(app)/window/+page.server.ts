@@ -28,6 +28,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 			cas: s.cas,
 			solvent: s.solvent,
 			lambdaMaxNm: s.lambda_max_nm,
+			longestWavelengthBandNm: s.longest_band_nm,
 			hasEpsilon: s.y_unit === 'epsilon' || (Number(s.concentration_m) > 0 && Number(s.path_cm) > 0),
 			tripletEnergyKJPerMol: s.triplet_energy_kj_per_mol
 		})),

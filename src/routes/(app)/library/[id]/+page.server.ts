@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { asPage, pageUser } from '$lib/server/auth/guard';
 import { ApiError } from '$lib/server/http';
 import { tagsOfSpectra } from '$lib/server/db/tags';
+import { listSolvents } from '$lib/server/db/solvents';
 import { canEditSpectrum, visibleSpectrum } from '$lib/server/services/spectraAccess';
 import { patchSpectrum, setSpectrumDeleted } from '$lib/server/services/spectraEdit';
 import { spectrumData } from '$lib/server/services/spectraExport';
@@ -21,7 +22,8 @@ export const load: PageServerLoad = async (event) => {
 		spectrum: spectrumToApi(row, tags, { canEdit: canEditSpectrum(caller, row) }),
 		points: spectrumData(row, null),
 		revisions: await revisionsOf(row.id),
-		similar: similar.items.map((s) => ({ id: s.id, name: s.name, part: s.part, lambdaMaxNm: s.lambdaMaxNm, similarity: s.similarity }))
+		similar: similar.items.map((s) => ({ id: s.id, name: s.name, part: s.part, lambdaMaxNm: s.lambdaMaxNm, longestWavelengthBandNm: s.longestWavelengthBandNm, similarity: s.similarity, overlapNm: s.overlapNm })),
+		linkedSolvents: (await listSolvents()).filter((v) => v.spectrumId === row.id).map((v) => ({ id: v.id, name: v.name }))
 	};
 };
 
