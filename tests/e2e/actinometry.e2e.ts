@@ -101,3 +101,36 @@ test.describe('lamps as measured: actinometry', () => {
 		expect(list.map((a: { id: string }) => a.id)).toEqual(['ferrioxalate', 'reinecke']);
 	});
 });
+
+test.describe('lamp from a raw-count emission file', () => {
+	test('the preview removes the dark floor by default and offers to keep it; no UV-C caution', async ({ page }) => {
+		test.setTimeout(120_000);
+		await signInAs(page, 'member');
+		const { readFileSync } = await import('node:fs');
+		const { resolve } = await import('node:path');
+		// ../shared/external/emission/led-405nm-spectrometer-raw-counts.txt (aphalo/photobiologyLEDs, GPL ≥ 2; MANIFEST.md):
+		// raw counts without dark subtraction, median baseline 4525 counts, peak 61870 counts at 408.32 nm
+		const file = readFileSync(resolve(process.cwd(), '../shared/external/emission/led-405nm-spectrometer-raw-counts.txt'));
+		const up = await page.request.post('/api/spectra', {
+			multipart: { file: { name: 'led-405nm-spectrometer-raw-counts.txt', mimeType: 'text/plain', buffer: file }, metadata: JSON.stringify({ kind: 'emission', yUnit: 'counts', xUnit: 'nm', name: `Raw-count 405 nm LED ${Date.now()}` }) }
+		});
+		expect(up.status()).toBe(201);
+		const id = (await up.json()).items[0].id;
+		await page.goto('/lamps/new');
+		await page.getByLabel('Name').fill(`Strip from raw counts ${Date.now()}`);
+		await page.getByLabel('Emission model').selectOption('spectrum');
+		await page.getByLabel('Optical power (W)').fill('1.6');
+		await page.getByLabel('Emission spectrum id (from the Library)').fill(String(id));
+		await page.getByRole('button', { name: 'Preview' }).click();
+		const preview = page.getByRole('region', { name: 'Preview' });
+		await expect(preview.getByTestId('preview-emission')).toContainText('dark floor');
+		await expect(preview.getByTestId('preview-emission')).toContainText('removed');
+		await expect(preview.locator('[data-caution="uv-c"]')).toHaveCount(0);
+		await expect(preview.locator('[data-caution="blue-light"]')).toHaveCount(1);
+		await page.screenshot({ path: 'test-results/lamp-preview-raw-counts-1366.png', fullPage: true });
+		await page.getByLabel('Dark floor (raw detector counts)').selectOption('keep');
+		await page.getByRole('button', { name: 'Preview' }).click();
+		await expect(preview.getByTestId('preview-emission')).toContainText('kept and counted as light');
+		await expect(preview.locator('[data-caution="uv-c"]')).toHaveCount(1);
+	});
+});
