@@ -150,7 +150,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'record actinometry form, no time', method: 'POST', path: '/lamps/1/actinometry?/record', kind: 'action', form: { actinometer: 'ferrioxalate', concentrationM: '0.006' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
 	{ name: 'record radiometer form, no power', method: 'POST', path: '/lamps/1/actinometry?/radiometer', kind: 'action', form: { materialId: '1' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
 	{ name: 'set calibration interval form, zero days', method: 'POST', path: '/lamps/1?/interval', kind: 'action', form: { intervalDays: '0' }, expect: leadOnly(400) },
-	{ name: 'preview lamp form, negative power', method: 'POST', path: '/lamps/new?/preview', kind: 'action', form: { name: '', modelType: 'led', powerW: '-1', peakNm: '365', fwhmNm: '10' }, expect: all(303, 400) },
+	{ name: 'preview lamp form, negative power', method: 'POST', path: '/lamps/new', kind: 'action', form: { intent: 'preview', name: '', modelType: 'led', powerW: '-1', peakNm: '365', fwhmNm: '10' }, expect: all(303, 400) },
 
 	// ---- desk: plans review, recompute, report, matrix, audit, outbox ----
 	// Group 1 is "harbourlight" in the freshly seeded test database; plan 999999 does not exist.
