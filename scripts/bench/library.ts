@@ -365,6 +365,7 @@ async function main() {
 		const picker = await timeRequest(`/api/spectra?q=${encodeURIComponent(prefix)}&part=photocatalyst&limit=20`);
 		const similar = await timeRequest(`/api/spectra/similar?to=${probe.id}`);
 		const library = await timeRequest('/library');
+		const libraryPeakRss = Math.max(peakRss, rssOf(pid, 'VmHWM'));
 		const windowPage = await timeRequest('/window', 3, 1);
 		const windowBr = await wireSize('/window', 'br, gzip');
 		const libraryBr = await wireSize('/library', 'br, gzip');
@@ -437,7 +438,8 @@ async function main() {
 		rows.push({ request: '/window page (median of 3)', ms: windowPage.ms, target: '≤ 300 ms', ok: windowPage.ms <= 300, note: `${(windowPage.body.length / 1048576).toFixed(2)} MB HTML, ${(windowBr.bytes / 1048576).toFixed(2)} MB as ${windowBr.coding}` });
 		rows.push({ request: `/api/health while 4 searches run (max of 15; ${searchesDone} searches done)`, ms: Math.max(...health), target: '≤ 50 ms', ok: Math.max(...health) <= 50, note: `median ${median(health).toFixed(1)} ms` });
 		const rss = Math.max(peakRss, rssOf(pid, 'VmHWM'));
-		rows.push({ request: 'app server peak RSS (MB)', ms: rss, target: '≤ 600 MB', ok: rss <= 600 });
+		rows.push({ request: 'app server peak RSS over the Library requests (MB)', ms: libraryPeakRss, target: '≤ 600 MB', ok: libraryPeakRss <= 600 });
+		rows.push({ request: 'app server peak RSS including /window (MB)', ms: rss, target: '≤ 600 MB', ok: rss <= 600 });
 
 		// ingest
 		const harbour = Number((await k('groups').where({ slug: 'harbourlight' }).first('id')).id);
@@ -461,6 +463,11 @@ async function main() {
 	} finally {
 		clearInterval(sampler);
 		server.kill('SIGTERM');
+		const exited = await new Promise<boolean>((r) => {
+			const t = setTimeout(() => r(false), 5000);
+			server.once('exit', () => (clearTimeout(t), r(true)));
+		});
+		if (!exited) server.kill('SIGKILL');
 		await k.destroy();
 	}
 }
