@@ -14,7 +14,7 @@ import { spectrumListQuerySchema } from '../../src/lib/schemas/spectra';
 import { zodToApiError } from '../../src/lib/server/http';
 import { searchSpectra } from '../../src/lib/server/services/spectraSearch';
 import { similarSpectra } from '../../src/lib/server/services/spectraSimilar';
-import { VectorCache } from '../../src/lib/server/services/spectraVectorCache';
+import { resetVectorCache, VectorCache } from '../../src/lib/server/services/spectraVectorCache';
 import { absorbsAt, absorbsAtWithMax, transparentAbove, transparentAboveFromFacts, vectorFacts } from '../../src/lib/server/services/spectraVectorFilters';
 import { stopSimilarityWorker, topKInProcess, topKInWorker } from '../../src/lib/server/services/similarityKernel';
 import { rankSimilar } from '../../src/lib/spectra/similarity';
@@ -190,6 +190,14 @@ describe('search', () => {
 		expect(p2.total).toBe(2);
 		// ε at 425 nm of the invented band 15000·exp(−(5/20)²/2) (Gaussian, test data)
 		expect(p2.items[0].epsilonAt!).toBeCloseTo(15000 * Math.exp(-0.5 * (5 / 20) ** 2), 0);
+	});
+	it('a plain listing counts the same with the index loaded (memory) as without (COUNT(*) in SQL)', async () => {
+		const cases: Record<string, string>[] = [{}, { part: 'photocatalyst' }, { deleted: 'only' }, { deleted: 'include' }, { owner: 'me' }, { solvent: 'nitr' }];
+		resetVectorCache();
+		const sql: number[] = [];
+		for (const c of cases) sql.push((await member2(c)).total);
+		await member2({ absorbsAt: '400' }); // loads the index
+		for (const [i, c] of cases.entries()) expect((await member2(c)).total).toBe(sql[i]);
 	});
 	it('paging out of range → 400 naming the field', () => {
 		for (const [field, value] of [['limit', '0'], ['limit', '501'], ['limit', 'ten'], ['offset', '-1'], ['offset', '1e300'], ['offset', '2.5']] as const) {

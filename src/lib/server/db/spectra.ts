@@ -352,9 +352,10 @@ export async function listSpectrumSummaries(reader: Reader, f: SpectrumSqlFilter
 }
 
 /** One page of visible summaries and the exact number of matching rows. */
-export async function pageSpectrumSummaries(reader: Reader, f: SpectrumSqlFilter, order: SpectrumOrder, limit: number, offset: number, conn: Knex = db()): Promise<{ rows: SpectrumRow[]; total: number }> {
-	const countQ = applyFilter(conn('spectra as s'), reader, f).count({ n: '*' });
+export async function pageSpectrumSummaries(reader: Reader, f: SpectrumSqlFilter, order: SpectrumOrder, limit: number, offset: number, conn: Knex = db(), opts: { count?: boolean } = {}): Promise<{ rows: SpectrumRow[]; total: number }> {
 	const pageQ = applyOrder(applyFilter(summaryQuery(conn).select(SUMMARY_COLUMNS), reader, f), order).limit(limit).offset(offset);
+	if (opts.count === false) return { rows: await pageQ, total: -1 };
+	const countQ = applyFilter(conn('spectra as s'), reader, f).count({ n: '*' });
 	const [[c], rows] = await Promise.all([countQ, pageQ]);
 	return { rows, total: Number((c as { n: number }).n) };
 }

@@ -32,7 +32,7 @@ import { tagsOfSpectra } from '../db/tags';
 import { roleAtLeast } from '../policy';
 import { callerOf, canEditSpectrum, type Caller } from './spectraAccess';
 import { absorbsAtWithMax, transparentAboveFromFacts, absorptionAt, type VectorRow } from './spectraVectorFilters';
-import { vectorCache, type VectorCache } from './spectraVectorCache';
+import { loadedVectorCache, vectorCache, type VectorCache } from './spectraVectorCache';
 import { spectrumToApi } from './spectraView';
 
 /** Fuse options: weighted keys, match anywhere in a name (ignoreLocation), threshold tuned on misspelt names ("benzofenone", "irdium"). */
@@ -276,6 +276,17 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 	const fuzzy = !!text && !cas;
 
 	if (!fuzzy && !needVector) {
+		// the page from SQL; the exact total from the index when this process has it loaded (the same rows:
+		// it was brought to the change counter just now), else COUNT(*) in SQL
+		const loaded = loadedVectorCache();
+		if (loaded) {
+			const c = await vectorCache();
+			const accept = await slotFilter(c, caller, f);
+			const { rows } = await pageSpectrumSummaries(caller.reader, f, order, q.limit, q.offset, undefined, { count: false });
+			let total = 0;
+			for (let s = 0; s < c.count; s++) if (accept(s)) total++;
+			return { total, items: await itemsOf(caller, rows) };
+		}
 		const { rows, total } = await pageSpectrumSummaries(caller.reader, f, order, q.limit, q.offset);
 		return { total, items: await itemsOf(caller, rows) };
 	}

@@ -299,6 +299,11 @@ export async function vectorCache(): Promise<VectorCache> {
 	return cache;
 }
 
+/** The index if this process has loaded it already (no database call), else null. */
+export function loadedVectorCache(): VectorCache | null {
+	return cache && cache.seq >= 0 && !cache.stale ? cache : null;
+}
+
 /** Drops the index (tests; a new one loads from scratch). */
 export function resetVectorCache(): void {
 	cache = null;
