@@ -136,5 +136,8 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'window finder page', method: 'GET', path: '/window', kind: 'page', expect: all(303, 200) },
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
-	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) }
+	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- reactions: measured quantum yields ----
+	{ name: 'quantum yield, empty body', method: 'POST', path: '/api/quantum-yield', kind: 'api', json: {}, expect: all(401, 400) },
+	{ name: 'quantum-yield page', method: 'GET', path: '/library/quantum-yield', kind: 'page', expect: all(303, 200) }
 ];
