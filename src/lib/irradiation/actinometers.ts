@@ -34,9 +34,9 @@ export interface Actinometer {
 }
 
 const FERRIOXALATE_SOURCE_006 =
-	'IUPAC 2004 technical report table after Hatchard & Parker, Proc. R. Soc. A 235, 518 (1956) (from memory, REFERENCE.md §5.1); 365/366 nm: Lee & Seliger, J. Chem. Phys. 40, 519 (1964), 1.26 ± 0.03 (verified)';
+	'IUPAC 2004 technical report table after Hatchard & Parker, Proc. R. Soc. A 235, 518 (1956) (from memory); 365/366 nm: Lee & Seliger, J. Chem. Phys. 40, 519 (1964), 1.26 ± 0.03 (verified)';
 const FERRIOXALATE_SOURCE_015 =
-	'IUPAC 2004 technical report table after Hatchard & Parker 1956 (from memory, REFERENCE.md §5.1); 365/366 nm: Lee & Seliger 1964, 1.20 ± 0.03 (verified)';
+	'IUPAC 2004 technical report table after Hatchard & Parker 1956 (from memory); 365/366 nm: Lee & Seliger 1964, 1.20 ± 0.03 (verified)';
 /**
  * Approximate decadic ε(λ) of tris(oxalato)ferrate(III) in 0.05 M H₂SO₄, M⁻¹ cm⁻¹ (from memory, read off the absorption
  * curve reproduced in handbooks after Hatchard & Parker 1956). Good to a factor of about 1.5: use it only where A ≫ 1
@@ -52,7 +52,7 @@ export const ACTINOMETERS: readonly Actinometer[] = [
 		id: 'ferrioxalate',
 		name: 'potassium ferrioxalate',
 		rangeNm: [253.7, 578],
-		readout: { species: '[Fe(phen)₃]²⁺ (1,10-phenanthroline complex of Fe²⁺)', wavelengthNm: 510, epsilon: FERROIN_EPSILON_510, source: 'Hatchard & Parker 1956; IUPAC 2004 (from memory, REFERENCE.md §5.1)' },
+		readout: { species: '[Fe(phen)₃]²⁺ (1,10-phenanthroline complex of Fe²⁺)', wavelengthNm: 510, epsilon: FERROIN_EPSILON_510, source: 'Hatchard & Parker 1956; IUPAC 2004 (from memory)' },
 		strengths: [
 			{
 				concentrationM: 0.006,
@@ -80,14 +80,14 @@ export const ACTINOMETERS: readonly Actinometer[] = [
 		id: 'reinecke',
 		name: "Reinecke's salt",
 		rangeNm: [316, 600],
-		readout: { species: 'Fe(III)–thiocyanate complex of the released NCS⁻', wavelengthNm: 450, epsilon: FE_THIOCYANATE_EPSILON_450, source: 'Wegner & Adamson, J. Am. Chem. Soc. 88, 394 (1966) (from memory, REFERENCE.md §5.2)' },
+		readout: { species: 'Fe(III)–thiocyanate complex of the released NCS⁻', wavelengthNm: 450, epsilon: FE_THIOCYANATE_EPSILON_450, source: 'Wegner & Adamson, J. Am. Chem. Soc. 88, 394 (1966) (from memory)' },
 		strengths: [
 			{
 				concentrationM: 0.015,
 				acceptM: [0.005, 0.05],
 				// Φ(NCS⁻ release) ≈ 0.27–0.31 over 316–600 nm, ≈ 0.29–0.30 at 450–520 nm (REFERENCE.md §5.2, from memory).
 				quantumYield: [[316, 0.27], [350, 0.29], [392, 0.29], [416, 0.3], [452, 0.3], [504, 0.29], [520, 0.29], [545, 0.29], [585, 0.27], [600, 0.27]],
-				source: 'Wegner & Adamson, J. Am. Chem. Soc. 88, 394 (1966), as listed in the IUPAC 2004 report (from memory; REFERENCE.md §5.2 range 0.27–0.31)'
+				source: 'Wegner & Adamson, J. Am. Chem. Soc. 88, 394 (1966), as listed in the IUPAC 2004 report (from memory; 0.27–0.31 over 316–600 nm)'
 			}
 		],
 		procedure: 'Irradiate V₁ of the solution (pH 5.3–5.5); take V₂, add Fe(NO₃)₃ in HClO₄, dilute to V₃ and read ΔA at 450 nm against a dark control kept for the same time (thermal aquation). Measure the solution’s absorbance at the irradiation wavelength over the vessel path.',

@@ -61,7 +61,7 @@ export interface CautionOptions {
 	blueLightThresholdW?: number;
 }
 
-const pct = (f: number) => `${(f * 100).toPrecision(2)} %`;
+const pct = (f: number) => (f >= 0.995 ? '100 %' : f >= 0.1 ? `${(f * 100).toFixed(0)} %` : `${(f * 100).toPrecision(2)} %`);
 const UV_TEXT: Record<'UV-C' | 'UV-B' | 'UV-A', [CautionSeverity, string]> = {
 	'UV-C': ['danger', 'UV-C burns skin and eyes (erythema, photokeratitis) within seconds to minutes at close range and is invisible. Enclose the source with interlocks; wear a UV-rated face shield, gloves and covered skin.'],
 	'UV-B': ['danger', 'UV-B causes skin erythema and photokeratitis; the effect appears hours later. Enclose the source; wear UV-rated eye and face protection and covered skin.'],

@@ -156,3 +156,11 @@ describe('line sources: peaks, complete tables and the 185 nm convention', () =>
 		expect(area(planner)).toBeCloseTo(10 * (1 - 9 / 118.7), 3);
 	});
 });
+
+describe('a line narrower than the grid step', () => {
+	it('1 W at 450 nm with FWHM 0.5 nm on the 0.5 nm grid = 3.7617 µmol s⁻¹ (REFERENCE §4, CODATA 2018)', () => {
+		const s = lampSpectrum({ type: 'led', peakNm: 450, fwhmNm: 0.5 }, 1);
+		expect(totalPhotonFluxEinsteinPerS(s) * 1e6).toBeCloseTo(3.7617, 3);
+		expect(s.outsideGridFraction).toBe(0);
+	});
+});

@@ -41,8 +41,32 @@ export function ledShape(model: LedModel, grid: SpectralGrid): ShapeOnGrid {
 		values[i] = ohno ? ohnoShape(x, (2 * hw) / OHNO_FWHM_PER_DELTA) : Math.exp(-Math.LN2 * (x / hw) ** 2);
 	}
 	// Analytic areas: Gaussian half = (hw/2)√(π/ln2); Ohno half = (Δ/2)√π·(1 + 2/√5)/3.
-	const totalArea = ohno
+	const analytic = ohno
 		? ((hwLong + hwShort) / OHNO_FWHM_PER_DELTA) * Math.sqrt(Math.PI) * (1 + 2 / Math.sqrt(5)) / 3
 		: ((hwLong + hwShort) / 2) * Math.sqrt(Math.PI / Math.LN2);
-	return { values, totalArea };
+	// Only power beyond the grid's ends counts as off-grid; a coarse grid's sampling error of a narrow line does not.
+	const toNm = grid.fromNm + (grid.count - 1) * grid.stepNm;
+	const outside = halfTail(hwLong, toNm - model.peakNm, ohno) + halfTail(hwShort, model.peakNm - grid.fromNm, ohno);
+	let gridArea = 0;
+	for (let i = 0; i < grid.count; i++) gridArea += i === 0 || i === grid.count - 1 ? values[i] / 2 : values[i];
+	gridArea *= grid.stepNm;
+	const inside = Math.max(analytic - outside, 1e-300);
+	return { values, totalArea: (gridArea * analytic) / inside };
+}
+
+/** Complementary error function (Abramowitz & Stegun 7.1.26, |error| < 1.5e-7), any sign of x. */
+function erfc(x: number): number {
+	const z = Math.abs(x);
+	const t = 1 / (1 + 0.3275911 * z);
+	const y = t * (0.254829592 + t * (-0.284496736 + t * (1.421413741 + t * (-1.453152027 + t * 1.061405429)))) * Math.exp(-z * z);
+	return x >= 0 ? y : 2 - y;
+}
+
+/** Area of one half of the shape (half width at half maximum hw) beyond distance d from the peak. */
+function halfTail(hw: number, d: number, ohno: boolean): number {
+	// ∫_d^∞ exp(−x²/(2σ²)) dx = σ·√(π/2)·erfc(d/(σ√2))
+	const tail = (sigma: number) => sigma * Math.sqrt(Math.PI / 2) * erfc(d / (sigma * Math.SQRT2));
+	if (!ohno) return tail(hw / Math.sqrt(2 * Math.LN2));
+	const delta = (2 * hw) / OHNO_FWHM_PER_DELTA; // g = exp(−(x/Δ)²): σ = Δ/√2; g⁵: σ = Δ/√10
+	return (tail(delta / Math.SQRT2) + 2 * tail(delta / Math.sqrt(10))) / 3;
 }

@@ -6,7 +6,8 @@ import { HCNA_J_NM_PER_MOL } from '../constants';
 import { CAUTION_GRID, lampSpectrum, totalPhotonFluxEinsteinPerS } from '../lamps';
 import { emissionQuantityOf, estimateFloor, measuredEmissionShape } from './measuredEmission';
 
-const EXTERNAL = resolve(__dirname, '../../../../../../shared/external');
+// tests run from the repository root; the product owner's files sit beside it in ../shared/external
+const EXTERNAL = resolve(process.cwd(), '../shared/external');
 
 /** The array-spectrometer export: 16 header lines, a marker, then tab-separated comma-decimal pairs. */
 function readLed405() {
