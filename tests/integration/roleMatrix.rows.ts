@@ -181,5 +181,8 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'comment on unknown plan form', method: 'POST', path: '/plans/999999?/comment', kind: 'action', form: { body: 'x' }, expect: all(303, 404) },
 	{ name: 'recompute unknown plan form', method: 'POST', path: '/plans/999999?/recompute', kind: 'action', form: {}, expect: all(303, 404) },
 	{ name: 'save recomputation of unknown plan form', method: 'POST', path: '/plans/999999?/saveRecompute', kind: 'action', form: { version: '1' }, expect: all(303, 404) },
-	{ name: 'change decision of unknown plan form', method: 'POST', path: '/plans/999999?/decision', kind: 'action', form: { version: '1' }, expect: all(303, 404) }
+	{ name: 'change decision of unknown plan form', method: 'POST', path: '/plans/999999?/decision', kind: 'action', form: { version: '1' }, expect: all(303, 404) },
+	// ---- reactions: measured quantum yields ----
+	{ name: 'quantum yield, empty body', method: 'POST', path: '/api/quantum-yield', kind: 'api', json: {}, expect: all(401, 400) },
+	{ name: 'quantum-yield page', method: 'GET', path: '/library/quantum-yield', kind: 'page', expect: all(303, 200) }
 ];

@@ -100,6 +100,8 @@ export interface LampResult {
 	timeTo99PctOfStationaryS: number | null;
 	/** Depth of the mixture (cm) in which 90 % of this lamp's photons entering it are absorbed (initial composition). */
 	penetrationDepth90Cm: number | null;
+	/** What the lamps are sorted by: q_abs,intended (× selectivity in photocatalytic mode), einstein s⁻¹. */
+	rankingScoreEinsteinPerS?: number;
 }
 
 export interface WindowAnswer {
@@ -358,7 +360,12 @@ export function computeWindow(input: ComputeWindowInput): WindowOutcome<WindowAn
 			sentence: `the ${nameInSentence(lamp.name)}${wallName}: ${pct(fraction)} of its photons reach the ${ab.intendedWord}`
 		};
 	});
-	lamps.sort((x, y) => y.absorbedByIntendedEinsteinPerS - x.absorbedByIntendedEinsteinPerS || y.selectivity - x.selectivity);
+	// Direct and reversible modes rank by the intended absorber's photons. Photocatalytic mode discounts the light
+	// that excites other species (the substrate's own photochemistry is a side reaction there): score = q_abs,cat ×
+	// selectivity, so a lamp that drives the catalyst as fast but also photolyses the substrate ranks lower.
+	const score = (l: LampResult) => (input.reaction?.type === 'photocatalytic' ? l.absorbedByIntendedEinsteinPerS * l.selectivity : l.absorbedByIntendedEinsteinPerS);
+	for (const l of lamps) l.rankingScoreEinsteinPerS = score(l);
+	lamps.sort((x, y) => score(y) - score(x) || y.selectivity - x.selectivity);
 
 	const band = longestWavelengthBand(grid, ab.intendedEpsilon);
 	const wallAtBand = band ? { wavelengthNm: band.wavelengthNm, transmission: input.wallTransmission[band.index], epsilon: band.epsilon } : null;
@@ -418,7 +425,9 @@ function explain(
 	const out: string[] = [];
 	const word = ab.intendedWord;
 	if (wallAtBand) {
-		const eps = wallAtBand.epsilon >= 1000 ? `${(wallAtBand.epsilon / 1000).toPrecision(3)} × 10³` : wallAtBand.epsilon.toPrecision(3);
+		const e = wallAtBand.epsilon, p = e >= 1000 ? Math.floor(Math.log10(e)) : 0;
+		const sup = (n: number) => String(n).split('').map((d) => '⁰¹²³⁴⁵⁶⁷⁸⁹'[Number(d)]).join('');
+		const eps = p ? `${(e / 10 ** p).toPrecision(3)} × 10${sup(p)}` : e.toPrecision(3);
 		out.push(`At its band maximum (${wallAtBand.wavelengthNm} nm) the wall passes ${pct(wallAtBand.transmission)} — the longest-wavelength band of the ${word} (ε ≈ ${eps} M⁻¹ cm⁻¹)${input.names?.wall ? `, ${input.names.wall}` : ''}.`);
 	} else out.push(`The ${word} shows no absorption band on the grid: check its spectrum.`);
 	const path = optics.shape === 'slab' ? `${optics.meanPathCm} cm` : `a mean path of ${optics.meanPathCm.toPrecision(3)} cm (${optics.shape})`;
@@ -489,6 +498,11 @@ export function computeWindowRanking(input: RankingInput): WindowOutcome<Ranking
 	const ab = absorbers({ ...input, wallTransmission: [], solventAbsorbancePerCm: [] }, optics);
 	const rankInput = { stepNm: input.grid.stepNm, pathCm: ab.pathCm, substrateAbsorbance: ab.aI, otherAbsorbance: ab.competitorSum, lamps: input.lamps, walls: input.walls, solvents: input.solvents, fractionPerAbsorbance: optics.fractionPerAbsorbance };
 	const ranking = rankCombinations(rankInput);
+	if (input.reaction?.type === 'photocatalytic') {
+		// the same score as the lamp list: q_abs,cat × selectivity = q_cat²/Σq_species
+		const sc = (idx: number) => (ranking.speciesFluxEinsteinPerS[idx] > 0 ? ranking.substrateFluxEinsteinPerS[idx] ** 2 / ranking.speciesFluxEinsteinPerS[idx] : 0);
+		ranking.order = Uint32Array.from(Array.from(ranking.order).sort((a, b) => sc(b) - sc(a)));
+	}
 	const k = optics.meanPathCm / ab.pathCm;
 	const windows: RankingAnswer['windows'] = [];
 	for (const s of input.solvents) {

@@ -53,6 +53,18 @@ describe('photocatalytic mode in the Window finder', () => {
 		expect(rk.value.combinations[0].sentence).toMatch(/photocatalyst$/);
 	});
 
+	it('a lamp that drives the catalyst as fast but also photolyses the substrate ranks below the selective blue LED', () => {
+		// invented: a 2 W 320 nm LED — more photons into the catalyst than the 1 W blue LED, but a share goes to the substrate
+		const lamps = [{ id: 'uvb', name: 'UV LED 320', photonFluxPerNm: led(320, 15, 2) }, base.lamps[2]];
+		const r = computeWindow({ ...base, lamps, substrate: { ...substrate, epsilon: band(280, 30, 1500) }, reaction: { type: 'photocatalytic', photocatalyst: catalyst } });
+		if (!r.ok) throw new Error('issues');
+		const [first, second] = r.value.lamps;
+		expect(second.id).toBe('uvb');
+		expect(second.absorbedByIntendedEinsteinPerS).toBeGreaterThan(first.absorbedByIntendedEinsteinPerS);
+		expect(second.selectivity).toBeLessThan(first.selectivity);
+		for (const l of r.value.lamps) expect(l.rankingScoreEinsteinPerS).toBeCloseTo(l.absorbedByIntendedEinsteinPerS * l.selectivity, 20);
+	});
+
 	it('the old way — the catalyst entered as another absorber in direct mode — makes the blue LED look useless', () => {
 		const r = computeWindow({ ...base, others: [catalyst] });
 		if (!r.ok) throw new Error('issues');
