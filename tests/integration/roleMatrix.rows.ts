@@ -136,5 +136,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'window finder page', method: 'GET', path: '/window', kind: 'page', expect: all(303, 200) },
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
-	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) }
+	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- jcamp: several spectra as one JCAMP-DX LINK file ----
+	{ name: 'spectra LINK export', method: 'GET', path: '/api/spectra/export?ids=1&format=jcamp', kind: 'api', expect: demoGroupApi(200) }
 ];
