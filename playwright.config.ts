@@ -7,6 +7,8 @@ import { defineConfig } from '@playwright/test';
 const port = Number(process.env.E2E_PORT ?? 4173);
 const external = process.env.E2E_BASE_URL;
 const baseURL = external ?? `http://127.0.0.1:${port}`;
+// npm test builds into its own folder (BUILD_DIR, default .build-test there) so a running `npm start` keeps its build/.
+const buildDir = process.env.BUILD_DIR ?? 'build';
 
 export default defineConfig({
 	testDir: 'tests/e2e',
@@ -40,7 +42,7 @@ export default defineConfig({
 	webServer: external
 		? undefined
 		: {
-				command: 'node build',
+				command: `node ${buildDir}`,
 				url: `${baseURL}/api/health`,
 				reuseExistingServer: false,
 				timeout: 60_000,

@@ -6,6 +6,9 @@
 #   bash scripts/db.sh status    running or not
 #   bash scripts/db.sh reset     stop, wipe the data directory, start again
 #   bash scripts/db.sh recreate-test-db   drop and create the test database (used by npm test)
+#   bash scripts/db.sh backup [FILE]      consistent dump of DB_NAME (gzip) into FILE [.data/backups/<db>-<time>.sql.gz]
+#   bash scripts/db.sh restore FILE [--yes]   replace DB_NAME with a dump (asks first unless --yes)
+#   (reset also asks first unless given --yes or DB_RESET_YES=1)
 #
 # Environment (defaults in brackets): DB_PORT [3307], DB_USER [windowsill],
 # DB_PASSWORD [windowsill-dev], DB_NAME [windowsill], DB_TEST_NAME [windowsill_test],
@@ -180,6 +183,54 @@ stop_server() {
   say "killed after 30 s"
 }
 
+# Dumps and restores use one max_allowed_packet on both sides (a large spectrum row must fit in one packet).
+DUMP_PACKET="${DB_DUMP_MAX_PACKET:-1G}"
+
+confirm() { # confirm "question" "$@" — true when --yes is among the arguments, DB_RESET_YES=1, or the user types yes
+  local q="$1"; shift
+  local a
+  for a in "$@"; do [ "$a" = "--yes" ] || [ "$a" = "-y" ] && return 0; done
+  [ "${DB_RESET_YES:-}" = "1" ] && return 0
+  if [ ! -t 0 ]; then die "$q — refusing without confirmation (no terminal). Pass --yes to go ahead."; fi
+  local reply
+  read -r -p "[db] $q Type 'yes' to go ahead: " reply
+  [ "$reply" = "yes" ] || die "cancelled; nothing was changed."
+}
+
+backup_db() {
+  local out="${1:-}"
+  if [ -z "$out" ]; then
+    mkdir -p "$DATA_ROOT/backups"
+    out="$DATA_ROOT/backups/${APP_DB}-$(date -u +%Y%m%dT%H%M%SZ).sql.gz"
+  fi
+  local tmp="$out.partial"
+  say "dumping database '$APP_DB' to $out"
+  # --single-transaction: a consistent snapshot of InnoDB tables without locking writers out.
+  "$(find_bin mariadb-dump mysqldump)" --defaults-file="$CNF" --protocol=socket -uroot \
+    --single-transaction --quick --hex-blob --routines --triggers --events \
+    --max-allowed-packet="$DUMP_PACKET" --default-character-set=utf8mb4 \
+    --databases "$APP_DB" | gzip -c > "$tmp" || { rm -f "$tmp"; die "mariadb-dump failed; no backup was written."; }
+  mv "$tmp" "$out"
+  say "backup written: $out ($(du -h "$out" | cut -f1))"
+}
+
+restore_db() {
+  local file="${1:-}"
+  [ -n "$file" ] || die "usage: npm run db:restore -- FILE [--yes]"
+  [ -f "$file" ] || die "no such backup file: $file"
+  shift
+  confirm "Restoring replaces every table of database '$APP_DB' with the contents of $file." "$@"
+  local reader=(cat "$file")
+  case "$file" in *.gz) reader=(gzip -dc "$file") ;; esac
+  say "restoring '$APP_DB' from $file"
+  sql_root -e "CREATE DATABASE IF NOT EXISTS \`$APP_DB\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;"
+  # The dump names its source database; restore into APP_DB whatever it was called.
+  "${reader[@]}" | sed -E '/^(CREATE DATABASE|USE) /d' | \
+    "$(find_bin mariadb)" --defaults-file="$CNF" --protocol=socket -uroot --max-allowed-packet="$DUMP_PACKET" \
+      --default-character-set=utf8mb4 "$APP_DB" || die "restore failed (the database may be partly restored; restore again or from another backup)."
+  say "restored '$APP_DB' from $file"
+}
+
 case "${1:-start}" in
   start)
     ensure_installed; write_cnf; init_datadir; start_server; provision ;;
@@ -189,11 +240,19 @@ case "${1:-start}" in
   status)
     if [ -f "$CNF" ] && pid="$(server_pid)" && ping_db; then say "running (pid $pid) on 127.0.0.1:$PORT"; else say "not running"; exit 3; fi ;;
   reset)
+    shift || true
+    confirm "This wipes every database of the private MariaDB in $DATADIR (all spectra, accounts and plans)." "$@"
     ensure_installed; write_cnf; stop_server; rm -rf "$DATADIR"; init_datadir; start_server; provision ;;
   recreate-test-db)
     [ -f "$CNF" ] || die "run 'bash scripts/db.sh start' first"
     sql_root -e "DROP DATABASE IF EXISTS \`$TEST_DB\`; CREATE DATABASE \`$TEST_DB\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;"
     provision ;;
+  backup)
+    [ -f "$CNF" ] && ping_db || die "MariaDB is not running: npm run db:up first"
+    backup_db "${2:-}" ;;
+  restore)
+    [ -f "$CNF" ] && ping_db || die "MariaDB is not running: npm run db:up first"
+    shift; restore_db "$@" ;;
   *)
-    echo "usage: bash scripts/db.sh start|stop|status|reset|recreate-test-db" >&2; exit 2 ;;
+    echo "usage: bash scripts/db.sh start|stop|status|reset [--yes]|recreate-test-db|backup [FILE]|restore FILE [--yes]" >&2; exit 2 ;;
 esac

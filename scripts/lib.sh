@@ -20,26 +20,29 @@ ensure_node_modules() {
 # The fake SMTP server (development and tests only): stores every message in the outbox table.
 start_fake_smtp() {
   [ -f scripts/fake-smtp.ts ] || return 0
+  # One pid file per SMTP port, so npm test (port 2535) never stops the server of a running npm start (2525).
   local log="$ROOT/.data/fake-smtp-${DB_NAME:-windowsill}.log"
+  local pidfile="$ROOT/.data/fake-smtp-${SMTP_PORT:-2525}.pid"
   mkdir -p "$ROOT/.data"
-  if [ -f "$ROOT/.data/fake-smtp.pid" ] && kill -0 "$(cat "$ROOT/.data/fake-smtp.pid")" 2>/dev/null; then
-    kill "$(cat "$ROOT/.data/fake-smtp.pid")" 2>/dev/null || true
+  if [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then
+    kill "$(cat "$pidfile")" 2>/dev/null || true
     sleep 0.5
   fi
   node --import tsx scripts/fake-smtp.ts >"$log" 2>&1 &
-  echo $! > "$ROOT/.data/fake-smtp.pid"
+  echo $! > "$pidfile"
   local i
   for i in $(seq 1 40); do
     if (exec 3<>"/dev/tcp/127.0.0.1/${SMTP_PORT:-2525}") 2>/dev/null; then echo "fake SMTP server on 127.0.0.1:${SMTP_PORT:-2525}"; return 0; fi
-    kill -0 "$(cat "$ROOT/.data/fake-smtp.pid")" 2>/dev/null || { cat "$log" >&2; echo "fake SMTP server failed to start" >&2; return 1; }
+    kill -0 "$(cat "$pidfile")" 2>/dev/null || { cat "$log" >&2; echo "fake SMTP server failed to start" >&2; return 1; }
     sleep 0.25
   done
   echo "fake SMTP server did not open its port" >&2; cat "$log" >&2; return 1
 }
 
 stop_fake_smtp() {
-  if [ -f "$ROOT/.data/fake-smtp.pid" ]; then
-    kill "$(cat "$ROOT/.data/fake-smtp.pid")" 2>/dev/null || true
-    rm -f "$ROOT/.data/fake-smtp.pid"
+  local pidfile="$ROOT/.data/fake-smtp-${SMTP_PORT:-2525}.pid"
+  if [ -f "$pidfile" ]; then
+    kill "$(cat "$pidfile")" 2>/dev/null || true
+    rm -f "$pidfile"
   fi
 }

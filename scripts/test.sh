@@ -6,6 +6,8 @@ source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 TEST_DB_NAME="${DB_TEST_NAME:-windowsill_test}"
 export SMTP_PORT="${TEST_SMTP_PORT:-2535}"
 export E2E_PORT="${E2E_PORT:-4173}"
+# Its own build folder (npm start serves build/): running npm test beside a live npm start never touches it.
+export BUILD_DIR="${TEST_BUILD_DIR:-.build-test}"
 export PUBLIC_ORIGIN="http://127.0.0.1:$E2E_PORT"
 export NODE_ENV=test
 export WINDOWSILL_DEMO=1

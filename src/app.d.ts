@@ -9,6 +9,8 @@ declare global {
 		interface Locals {
 			user: SessionUser | null;
 			session: SessionInfo | null;
+			/** Set by handleError when the failure was a database outage (answered 503 by outageGuard). */
+			dbOutage?: boolean;
 		}
 	}
 }

@@ -155,15 +155,51 @@ describe('throttling', () => {
 		expect((await consume(bucket, limit)).retryAfterS).toBe(0);
 		await clear(bucket);
 	});
-	it('locks an account after repeated wrong passwords, even for the right one', async () => {
+	it('an attacker at another address never locks the owner out (per account-and-address counters)', async () => {
 		const u = await makeUser('the-right-password');
-		const ip = `test-ip-${u.id}`;
-		for (let i = 0; i < LIMITS.signinAccount.max; i++) expect((await checkCredentials(u.email, 'nope-nope-nope', ip)).ok).toBe(false);
-		const r = await checkCredentials(u.email, 'the-right-password', ip);
-		expect(r).toMatchObject({ ok: false, reason: 'throttled' });
-		await clear(`signin-account:${u.email}`);
-		await clear(`signin-ip:${ip}`);
-		expect((await checkCredentials(u.email, 'the-right-password', ip)).ok).toBe(true);
+		const attacker = `test-attacker-${u.id}`;
+		const owner = `test-owner-${u.id}`;
+		for (let i = 0; i < LIMITS.signinAccount.max; i++) expect((await checkCredentials(u.email, 'nope-nope-nope', attacker)).ok).toBe(false);
+		// The attacker's address is now backing off for this account…
+		expect(await checkCredentials(u.email, 'the-right-password', attacker)).toMatchObject({ ok: false, reason: 'throttled' });
+		// …but the owner, at their own address, signs in at once.
+		const r = await checkCredentials(u.email, 'the-right-password', owner);
+		expect(r.ok).toBe(true);
+	});
+	it('a known browser signs in even from the attacked address, and gets its own counter', async () => {
+		const u = await makeUser('the-right-password');
+		const shared = `test-proxy-${u.id}`;
+		const first = await checkCredentials(u.email, 'the-right-password', `test-home-${u.id}`);
+		expect(first.ok).toBe(true);
+		const device = first.ok ? first.deviceToken : '';
+		for (let i = 0; i < LIMITS.signinAccount.max + 2; i++) await checkCredentials(u.email, 'nope-nope-nope', shared);
+		expect(await checkCredentials(u.email, 'the-right-password', shared)).toMatchObject({ ok: false, reason: 'throttled' });
+		expect((await checkCredentials(u.email, 'the-right-password', shared, device)).ok).toBe(true);
+	});
+	it('backs off exponentially from the last failure instead of locking for the whole window', async () => {
+		const bucket = `test-backoff:${Date.now()}`;
+		const limit = { max: 2, windowS: 900, backoffS: 30 };
+		await consume(bucket, limit);
+		await consume(bucket, limit);
+		const wait = (await consume(bucket, limit)).retryAfterS;
+		expect(wait).toBeGreaterThan(0);
+		expect(wait).toBeLessThanOrEqual(30); // 30 s · 2^0, not 900 s
+		await clear(bucket);
+	});
+	it('limits per address only for accounts that do not exist (one proxy for a whole institute stays usable)', async () => {
+		const u = await makeUser('the-right-password');
+		const proxy = `test-institute-${u.id}`;
+		const before = LIMITS.signinIp.max;
+		(LIMITS.signinIp as { max: number }).max = 3;
+		try {
+			for (let i = 0; i < 3; i++) await checkCredentials(`nobody-${i}-${u.id}@lab.example.org`, 'whatever-123', proxy);
+			expect(await checkCredentials(`nobody-9-${u.id}@lab.example.org`, 'whatever-123', proxy)).toMatchObject({ reason: 'throttled' });
+			// A real member behind the same proxy is not affected.
+			expect((await checkCredentials(u.email, 'the-right-password', proxy)).ok).toBe(true);
+		} finally {
+			(LIMITS.signinIp as { max: number }).max = before;
+			await clear(`signin-ip:${proxy}`);
+		}
 	});
 });
 
@@ -180,5 +216,16 @@ describe('API tokens', () => {
 		expect((await db()('api_tokens').where({ id }).first()).last_used_at).not.toBeNull();
 		expect(await revokeApiToken(u.id, id)).toBe(true);
 		expect(await authenticateBearer(token)).toBeNull();
+	});
+	it('a password change or reset revokes every token of the user', async () => {
+		const u = await makeUser('old-password-123');
+		const a = await createApiToken(u.id, 'before change');
+		expect(await changePassword(u.id, 'old-password-123', 'new-password-456')).toBe(true);
+		expect(await authenticateBearer(a.token)).toBeNull();
+		const b = await createApiToken(u.id, 'before reset');
+		const secret = randomSecret();
+		await insertLink('password_resets', { userId: u.id, tokenHash: hashSecret(secret), expiresAt: inAnHour() });
+		expect(await resetPassword(secret, 'newer-password-789')).toBe(u.id);
+		expect(await authenticateBearer(b.token)).toBeNull();
 	});
 });

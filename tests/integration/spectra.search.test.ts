@@ -79,9 +79,12 @@ describe('export → re-import', () => {
 				expect(n.value.kind).toBe(stored.kind);
 				expect(n.value.yUnit).toBe(stored.yUnit);
 				expect(n.value.x.length).toBe(stored.x.length);
+				// JCAMP-DX 4.24 XYDATA are integers × YFACTOR: the error is bounded relative to the largest |y|
+				// (14 significant digits of the maximum here), not relative to each point.
+				const yMax = stored.y.reduce((m, v) => Math.max(m, Math.abs(v)), 0);
 				for (let i = 0; i < stored.x.length; i++) {
 					expect(Math.abs(n.value.x[i] - stored.x[i])).toBeLessThanOrEqual(1e-9 * Math.abs(stored.x[i]));
-					expect(Math.abs(n.value.y[i] - stored.y[i])).toBeLessThanOrEqual(1e-9 * Math.max(Math.abs(stored.y[i]), 1e-300));
+					expect(Math.abs(n.value.y[i] - stored.y[i])).toBeLessThanOrEqual(1e-9 * Math.max(format === 'jcamp' ? yMax : Math.abs(stored.y[i]), 1e-300));
 				}
 			}
 		});

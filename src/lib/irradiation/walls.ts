@@ -112,12 +112,30 @@ export interface WallCutoffOptions {
 	stepNm?: number;
 }
 
-/** 10 % and 50 % cut-offs (nm) of a wall; see transmissionCutoffNm for the conventions. */
-export function wallCutoffsNm(material: WallMaterialModel, thicknessMm: number, options: WallCutoffOptions = {}): { cutoff10Nm: number | null; cutoff50Nm: number | null } {
-	const { fromNm = 190, toNm = 800, stepNm = 0.1 } = options;
+/**
+ * 10 % and 50 % cut-offs (nm) of a wall; see transmissionCutoffNm for the conventions. Searched only where the
+ * material has data (k tables and measured curves start somewhere; the edge model has no lower limit): when T stays
+ * above the threshold down to the first wavelength with data, the cut-off lies below the data range and is null, with
+ * a note such as "below the data range, T(300 nm) = 81 %" (never the data limit reported as a cut-off).
+ */
+export function wallCutoffsNm(
+	material: WallMaterialModel, thicknessMm: number, options: WallCutoffOptions = {}
+): { cutoff10Nm: number | null; cutoff50Nm: number | null; cutoff10Note?: string; cutoff50Note?: string; dataFromNm: number } {
+	const { toNm = 800, stepNm = 0.1 } = options;
+	const dataFrom = material.model === 'k' ? material.kTable.wavelengthNm[0] : material.model === 'measured' ? material.wavelengthNm[0] : -Infinity;
+	const fromNm = Math.max(options.fromNm ?? 190, dataFrom);
 	const count = Math.floor((toNm - fromNm) / stepNm + 1e-9) + 1;
 	const t = wallTransmissionOnGrid(material, thicknessMm, fromNm, stepNm, count);
 	const x = new Float64Array(count);
 	for (let i = 0; i < count; i++) x[i] = fromNm + i * stepNm;
-	return { cutoff10Nm: transmissionCutoffNm(x, t, 0.1), cutoff50Nm: transmissionCutoffNm(x, t, 0.5) };
+	const pct = (v: number) => `${(v * 100).toFixed(v < 0.1 ? 1 : 0)} %`;
+	const one = (threshold: number): [number | null, string | undefined] => {
+		const c = transmissionCutoffNm(x, t, threshold);
+		if (c === null) return [null, `above the data range, T(${toNm} nm) = ${pct(t[count - 1])}`];
+		if (c === x[0] && t[0] >= threshold) return [null, `below the data range, T(${Math.round(fromNm * 10) / 10} nm) = ${pct(t[0])}`];
+		return [c, undefined];
+	};
+	const [c10, n10] = one(0.1);
+	const [c50, n50] = one(0.5);
+	return { cutoff10Nm: c10, cutoff50Nm: c50, ...(n10 ? { cutoff10Note: n10 } : {}), ...(n50 ? { cutoff50Note: n50 } : {}), dataFromNm: fromNm };
 }

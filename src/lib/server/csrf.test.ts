@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
-import { csrfGuard } from './csrf';
+import { csrfGuard, sameSite } from './csrf';
 
 const ok = new Response('ok');
 async function run(method: string, headers: Record<string, string>, url = 'https://127.0.0.1:3000/api/spectra') {
@@ -21,5 +21,12 @@ describe('cross-site request guard', () => {
 		expect(await run('POST', { origin: 'https://evil.example', host: '127.0.0.1:3000' })).toBe(403);
 		expect(await run('DELETE', { 'sec-fetch-site': 'cross-site', host: '127.0.0.1:3000' })).toBe(403);
 		expect(await run('POST', { origin: 'null', host: '127.0.0.1:3000' })).toBe(403);
+	});
+	it('ignores a client-supplied X-Forwarded-Host unless HOST_HEADER says a proxy sets it', async () => {
+		const url = new URL('https://127.0.0.1:3000/api/spectra');
+		const h = new Headers({ host: '127.0.0.1:3000', 'x-forwarded-host': 'evil.example' });
+		expect(sameSite('https://evil.example', url, h, {})).toBe(false);
+		expect(await run('POST', { origin: 'https://evil.example', host: '127.0.0.1:3000', 'x-forwarded-host': 'evil.example' })).toBe(403);
+		expect(sameSite('https://app.lab.example.org', url, new Headers({ host: '10.0.0.5:3000', 'x-forwarded-host': 'app.lab.example.org' }), { HOST_HEADER: 'x-forwarded-host' })).toBe(true);
 	});
 });

@@ -11,9 +11,11 @@ import type { Handle } from '@sveltejs/kit';
  */
 /**
  * Whether a browser's Origin names this site: equal to the URL's origin, or (adapter-node assumes https
- * unless ORIGIN is set) the same host:port as the Host / X-Forwarded-Host header the browser sent.
+ * unless ORIGIN is set) the same host:port as the Host header. X-Forwarded-Host is believed only when the
+ * deployment says a proxy sets it (adapter-node's HOST_HEADER=x-forwarded-host, which also makes it the
+ * URL's host); a client-supplied X-Forwarded-Host is otherwise ignored.
  */
-function sameSite(origin: string, url: URL, headers: Headers): boolean {
+export function sameSite(origin: string, url: URL, headers: Headers, env: Record<string, string | undefined> = process.env): boolean {
 	if (origin === url.origin) return true;
 	let host: string;
 	try {
@@ -21,8 +23,9 @@ function sameSite(origin: string, url: URL, headers: Headers): boolean {
 	} catch {
 		return false;
 	}
-	const forwarded = headers.get('x-forwarded-host')?.split(',')[0].trim();
-	return host === (forwarded || headers.get('host'));
+	const hostHeader = (env.HOST_HEADER ?? '').trim().toLowerCase();
+	const trustedHost = hostHeader ? headers.get(hostHeader)?.split(',')[0].trim() : undefined;
+	return host === (trustedHost || headers.get('host'));
 }
 
 export const csrfGuard: Handle = async ({ event, resolve }) => {

@@ -37,12 +37,31 @@ export function apiHandler<E>(fn: (event: E) => Promise<Response> | Response) {
 	};
 }
 
-/** Reads a JSON body or throws a 400 naming the problem. */
+/** True when reading a body failed because it is above BODY_SIZE_LIMIT (adapter-node errors the stream with 413). */
+export function isBodyTooLarge(e: unknown): boolean {
+	const err = e as { status?: number; cause?: { status?: number }; message?: string } | undefined;
+	return err?.status === 413 || err?.cause?.status === 413 || /content-length of \d+ exceeds limit|payload too large/i.test(err?.message ?? '');
+}
+
+export const bodyTooLarge = () => new ApiError(413, 'too_large', `The request body is above the ${process.env.BODY_SIZE_LIMIT ?? '512K'} limit.`);
+
+/** Reads a JSON body or throws a 400 naming the problem (413 when it is too large). */
 export async function readJson(request: Request): Promise<unknown> {
 	try {
 		return await request.json();
-	} catch {
+	} catch (e) {
+		if (isBodyTooLarge(e)) throw bodyTooLarge();
 		throw new ApiError(400, 'bad_json', 'The request body is not valid JSON.');
+	}
+}
+
+/** Reads a multipart or urlencoded body (413 when it is too large, 400 when it cannot be read). */
+export async function readFormData(request: Request): Promise<FormData> {
+	try {
+		return await request.formData();
+	} catch (e) {
+		if (isBodyTooLarge(e)) throw bodyTooLarge();
+		throw new ApiError(400, 'invalid', 'The multipart body could not be read.', { field: 'file' });
 	}
 }
 

@@ -33,6 +33,12 @@ function convertY(raw: RawSpectrum, c: number | undefined, l: number | undefined
 		}
 		return -Math.log10(t);
 	};
+	// reflectance is never read as absorbance or transmittance, and nothing else is read as reflectance
+	if (raw.kind === 'reflectance' || u === 'reflectance' || u === 'reflectance-percent') {
+		if (raw.kind !== 'reflectance' || (u !== 'reflectance' && u !== 'reflectance-percent')) return undefined;
+		for (let i = 0; i < n; i++) y[i] = u === 'reflectance-percent' ? raw.y[i] / 100 : raw.y[i];
+		return { y, yUnit: 'reflectance' as const };
+	}
 	if (raw.kind === 'absorption') {
 		for (let i = 0; i < n; i++) {
 			const v = raw.y[i];

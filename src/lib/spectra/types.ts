@@ -3,7 +3,8 @@
  * Wavelengths are nm (air); y-quantities per kind follow PRODUCT.md.
  */
 
-export type SpectrumKind = 'absorption' | 'transmission' | 'emission';
+/** `reflectance`: diffuse or specular reflectance (fraction 0–1 stored); never used as absorbance. */
+export type SpectrumKind = 'absorption' | 'transmission' | 'emission' | 'reflectance';
 
 /** Units a file or the user may declare for x. */
 export type XUnit = 'nm' | 'cm-1' | 'um';
@@ -15,6 +16,8 @@ export type YUnit =
 	| 'log-epsilon'
 	| 'transmittance'
 	| 'transmittance-percent'
+	| 'reflectance'
+	| 'reflectance-percent'
 	| 'relative'
 	| 'W/nm'
 	| 'W/m2/nm'
@@ -67,6 +70,14 @@ export interface RawSpectrum {
 	column?: number;
 	/** 1-based line in the original text of each point (same length as x), when known. */
 	lines?: Int32Array;
+	/**
+	 * Time series (a delimited table with one spectrum per row, e.g. a kinetics run): the time of this spectrum in
+	 * seconds, read from the row's first field in the unit its column header names (seconds when it names none).
+	 * Stored as spectra.block_time_s beside block_label; `index` keeps the file order.
+	 */
+	timeS?: number;
+	/** The row's or block's own label as written in the file (e.g. "30" under "Time (s)"). */
+	blockLabel?: string;
 }
 
 /** A spectrum normalised to nm (ascending) and the y-quantity of its kind (PRODUCT.md). */
@@ -76,7 +87,7 @@ export interface NormalisedSpectrum {
 	x: Float64Array;
 	/** absorption: epsilon (M^-1 cm^-1) or absorbance; transmission: fraction 0..1; emission: relative, area-normalised W nm^-1 (or the file's absolute unit). */
 	y: Float64Array;
-	yUnit: 'epsilon' | 'absorbance' | 'transmittance' | 'relative' | 'W/nm' | 'W/m2/nm' | 'counts';
+	yUnit: 'epsilon' | 'absorbance' | 'transmittance' | 'reflectance' | 'relative' | 'W/nm' | 'W/m2/nm' | 'counts';
 }
 
 /** Derived values stored with a spectrum. */
@@ -89,6 +100,20 @@ export interface SpectrumDerived {
 	cutoff10Nm: number | null;
 	cutoff50Nm: number | null;
 	peaks: { wavelengthNm: number; value: number }[];
+	/** absorption: the longest-wavelength band maximum above noise (the band one irradiates), nm; its y value; whether its top is saturated. */
+	longestBandNm?: number | null;
+	longestBandValue?: number | null;
+	longestBandSaturated?: boolean;
+	/** absorption: every band maximum above noise, ascending λ (saturated tops flagged). */
+	bands?: { wavelengthNm: number; value: number; saturated: boolean }[];
+	/** transmission: why a cut-off is null ("below the data range, T(300 nm) = 81 %"). */
+	cutoffNotes?: { cutoff10?: string; cutoff50?: string };
+	/** Saturated (A above the linear range) and noise-dominated stretches, left out of λmax, peaks and bands. */
+	excluded?: { fromNm: number; toNm: number; reason: 'saturated' | 'noise' }[];
+	/** Robust noise σ of y. */
+	noiseSigma?: number;
+	/** Stretches of the 1 nm grid that shape similarity may use ([fromNm, toNm] inclusive). */
+	similarity?: { usable: [number, number][]; aboveNoise: [number, number][] };
 	/** 1 nm vector on 190..1100 nm (911 values), NaN outside the measured range replaced by 0; see grid.ts. */
 	searchVector: Float32Array;
 }

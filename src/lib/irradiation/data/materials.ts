@@ -2,7 +2,7 @@
  * Wall materials for reactor vessels, windows and flow tubing (generic names only).
  * k-table materials use the CC0 refractive-index data resampled in ./materialTables (generated);
  * the others use the approximate edges of the group's reference table (λ at T = 10 % and 50 %,
- * Fresnel loss included), marked "from memory". Real vessel glass varies with lot, iron content
+ * Fresnel loss included), status "from memory" (the named handbook normally gives them; not re-read). Real vessel glass varies with lot, iron content
  * and solarisation.
  */
 import type { WallMaterialModel } from '../walls';
@@ -24,19 +24,21 @@ export interface WallMaterialRecord {
 }
 
 const DB = 'refractiveindex.info database (CC0)';
-const EDGES = 'approximate UV edges, typical literature and manufacturer values (from memory)';
+const EDGES = 'approximate UV edges (λ at T = 10 % and 50 %), typical literature and manufacturer values';
 
 function kMaterial(id: string, name: string, source: string, typicalThicknessMm: number, notes: string): WallMaterialRecord {
 	const t = MATERIAL_K_TABLES[id];
-	return { id, name, source: `${DB}: ${source}`, status: 'verified', n: t.n589Nm, typicalThicknessMm, notes,
+	// status "computed": T(λ, d) = (1 − R)²·exp(−4πk·d/λ) computed here from the dataset's k (the k values themselves are
+	// digitised manufacturer or handbook data, reference data rather than test check values)
+	return { id, name, source: `${DB}: ${source}`, status: 'computed', n: t.n589Nm, typicalThicknessMm, notes,
 		definition: { model: 'k', kTable: { wavelengthNm: t.wavelengthNm, k: t.k }, n: t.n589Nm } };
 }
 
 function edgeMaterial(
 	id: string, name: string, n: number, edge10Nm: number, edge50Nm: number, atThicknessMm: number,
-	typicalThicknessMm: number, notes: string, nSource = 'n from memory (typical handbook value)'
+	typicalThicknessMm: number, notes: string, nSource = 'n: typical handbook value', edgeSource = ''
 ): WallMaterialRecord {
-	return { id, name, source: `${EDGES}; ${nSource}`, status: 'from memory', n, typicalThicknessMm, notes,
+	return { id, name, source: `${EDGES}${edgeSource ? ` (${edgeSource})` : ''}; ${nSource}`, status: 'from memory', n, typicalThicknessMm, notes,
 		definition: { model: 'edge', edge10Nm, edge50Nm, atThicknessMm, n } };
 }
 
@@ -59,16 +61,16 @@ export const WALL_MATERIALS: readonly WallMaterialRecord[] = [
 	kMaterial('soda-lime-slide', 'Soda-lime glass, microscope slide', 'soda-lime microscope slide (Kamptner, Scharber & Schiek, ChemPhysChem 2024)', 1,
 		'Also typical of cheap vials and Petri dishes; strongly iron-dependent.'),
 	edgeMaterial('uv-b-sleeve-glass', 'Calcium-aluminosilicate filter-sleeve glass', 1.53, 260, 280, 1.5, 1.5,
-		'Classic immersion-lamp filter sleeve (Murov, Carmichael & Hug, Handbook of Photochemistry, 2nd ed. 1993, from memory). n is an estimate.'),
+		'Classic immersion-lamp filter sleeve. n is an estimate.', 'n: estimate', 'filter-sleeve table of Murov, Carmichael & Hug, Handbook of Photochemistry, 2nd ed., Dekker 1993'),
 	edgeMaterial('uranium-glass-sleeve', 'Uranium glass filter sleeve', 1.53, 325, 345, 1.5, 1.5,
-		'Immersion-lamp filter sleeve (same handbook, from memory). n is an estimate.'),
+		'Immersion-lamp filter sleeve. n is an estimate.', 'n: estimate', 'filter-sleeve table of Murov, Carmichael & Hug, Handbook of Photochemistry, 2nd ed., Dekker 1993'),
 	edgeMaterial('sapphire', 'Sapphire (UV grade)', MATERIAL_N_589.sapphire, 148, 170, 1, 1,
 		'Intrinsic edge ≈ 143 nm; maximum T ≈ 85 % from Fresnel loss (R ≈ 7.7 % per face).', nFrom('sapphire', 'the Malitson 1962 ordinary-ray Sellmeier')),
 	edgeMaterial('pmma-standard', 'PMMA, standard (UV-absorber-containing)', MATERIAL_N_589.pmma, 375, 390, 3, 3,
 		'Blocks UV-A below ≈ 375 nm.', nFrom('pmma', 'a PMMA dispersion formula')),
 	edgeMaterial('pmma-uv-transmitting', 'PMMA, UV-transmitting grade', MATERIAL_N_589.pmma, 265, 285, 3, 3, 'Grade without UV absorber.', nFrom('pmma', 'a PMMA dispersion formula')),
 	edgeMaterial('polycarbonate', 'Polycarbonate (UV-stabilised)', MATERIAL_N_589.polycarbonate, 385, 400, 3, 3,
-		'Consistent with α(405 nm) = 2.09 cm⁻¹ (Zhang 2020).', nFrom('polycarbonate', 'a polycarbonate dispersion formula')),
+		'The edge agrees with the absorption coefficient α(405 nm) = 2.09 cm⁻¹ of an open polycarbonate dataset (Zhang et al. 2020): T_int(3 mm) = 0.53.', nFrom('polycarbonate', 'the Sultanova polycarbonate dispersion formula'), 'consistent with Zhang et al. 2020, α(405 nm) = 2.09 cm⁻¹'),
 	edgeMaterial('polystyrene', 'Polystyrene', MATERIAL_N_589.polystyrene, 295, 315, 2, 1,
 		'Disposable PS cuvettes are usable ≈ 340–800 nm (common practice).', nFrom('polystyrene', 'a polystyrene dispersion formula')),
 	edgeMaterial('fep', 'FEP (fluorinated ethylene propylene)', 1.344, 195, 225, 0.25, 0.4,

@@ -13,6 +13,7 @@ import { hashPassword, verifyPassword } from './password';
 import { LIFETIME_MS, fromNow, hashSecret, randomSecret } from './tokens';
 import { LIMITS, consume } from './rate-limit';
 import { invalidateUserSessions } from './session';
+import { revokeAllApiTokens } from '../db/apiTokens';
 
 /** A fresh user id (16 base32 characters). */
 export const newUserId = () => generateIdFromEntropySize(10);
@@ -85,6 +86,8 @@ export async function resetPassword(token: string, password: string): Promise<st
 		await setPasswordHash(id, passwordHash, trx);
 		await markEmailVerified(id, trx);
 		await expireLinksOf('password_resets', id, trx);
+		// A reset means the password may be known to someone else: their tokens die with it.
+		await revokeAllApiTokens(id, trx);
 		await audit({ actorId: id, action: 'password.reset' }, trx);
 		return id;
 	});
@@ -97,6 +100,7 @@ export async function changePassword(userId: string, current: string, next: stri
 	const user = await findUserById(userId);
 	if (!user || !(await verifyPassword(user.passwordHash, current))) return false;
 	await setPasswordHash(userId, await hashPassword(next));
+	await revokeAllApiTokens(userId);
 	await invalidateUserSessions(userId);
 	await audit({ actorId: userId, action: 'password.change' });
 	return true;

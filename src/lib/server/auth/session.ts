@@ -7,6 +7,7 @@
 import { Lucia, TimeSpan, type Cookie } from 'lucia';
 import { Mysql2Adapter } from '@lucia-auth/adapter-mysql';
 import mysql from 'mysql2/promise';
+import { statementTimeoutSeconds } from '../db/index';
 import type { Cookies } from '@sveltejs/kit';
 import { connectionFromEnv } from '../../../../knexfile';
 import type { SessionUser } from './types';
@@ -15,7 +16,12 @@ let pool: mysql.Pool | null = null;
 let instance: Lucia<Record<never, never>, SessionUser> | null = null;
 
 function authPool(): mysql.Pool {
-	pool ??= mysql.createPool({ ...connectionFromEnv(process.env), connectionLimit: 5, maxIdle: 0, idleTimeout: 30_000 });
+	if (!pool) {
+		pool = mysql.createPool({ ...connectionFromEnv(process.env), connectionLimit: 5, maxIdle: 0, idleTimeout: 30_000 });
+		// The same per-statement time limit as the app's knex pool (src/lib/server/db/index.ts).
+		const limit = statementTimeoutSeconds(process.env);
+		if (limit) pool.pool.on('connection', (conn) => conn.query(`SET SESSION max_statement_time = ${limit}`));
+	}
 	return pool;
 }
 
@@ -96,4 +102,9 @@ export async function closeAuthPool(): Promise<void> {
 	pool = null;
 	instance = null;
 	if (p) await p.end();
+}
+
+/** Sets the long-lived "known browser" cookie after a successful sign-in (see signin.ts). */
+export function setDeviceCookie(cookies: Cookies, url: URL, name: string, token: string): void {
+	cookies.set(name, token, { path: '/', httpOnly: true, sameSite: 'lax', secure: secureCookies(url), maxAge: 400 * 86400 });
 }

@@ -18,6 +18,11 @@ export async function revokeApiToken(userId: string, id: number, k: Knex = db())
 	return (await k('api_tokens').where({ id, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() })) === 1;
 }
 
+/** Revokes every live token of the user (password change or reset); returns how many. */
+export async function revokeAllApiTokens(userId: string, k: Knex = db()): Promise<number> {
+	return k('api_tokens').where({ user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+}
+
 /** The live token with this hash joined to its owner, or null. */
 export async function findLiveToken(tokenHash: string, k: Knex = db()) {
 	return (

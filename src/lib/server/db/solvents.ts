@@ -13,7 +13,10 @@ export interface Solvent {
 	source: string;
 	status: ReferenceStatus;
 	notes: string | null;
+	/** Linked measured absorption spectrum of the Library (wins over the cut-off edge model), null when none. */
 	spectrumId: number | null;
+	/** Name of the linked spectrum when it is still there (not deleted), else null. */
+	spectrumName: string | null;
 }
 
 function toSolvent(r: Record<string, unknown>): Solvent {
@@ -28,23 +31,58 @@ function toSolvent(r: Record<string, unknown>): Solvent {
 		source: String(r.source),
 		status: r.status as ReferenceStatus,
 		notes: (r.notes as string) ?? null,
-		spectrumId: r.spectrum_id == null ? null : Number(r.spectrum_id)
+		spectrumId: r.spectrum_id == null ? null : Number(r.spectrum_id),
+		spectrumName: r.spectrum_name == null ? null : String(r.spectrum_name)
 	};
 }
 
+const solventQuery = () =>
+	db()('solvents as v')
+		.leftJoin('spectra as s', function () {
+			this.on('s.id', '=', 'v.spectrum_id').andOnNull('s.deleted_at');
+		})
+		.select('v.*', 's.name as spectrum_name');
+
 /** All solvents ordered by name. */
 export async function listSolvents(): Promise<Solvent[]> {
-	const rows = await db()('solvents').orderBy('name');
+	const rows = await solventQuery().orderBy('v.name');
 	return rows.map(toSolvent);
 }
 
 /** One solvent by numeric id, or null. */
 export async function getSolvent(id: number): Promise<Solvent | null> {
-	const r = await db()('solvents').where({ id }).first();
+	const r = await solventQuery().where('v.id', id).first();
+	return r ? toSolvent(r) : null;
+}
+
+/** One solvent by slug, or null. */
+export async function getSolventBySlug(slug: string): Promise<Solvent | null> {
+	const r = await solventQuery().where('v.slug', slug).first();
 	return r ? toSolvent(r) : null;
 }
 
 /** Links (or with null unlinks) a measured spectrum to a solvent; returns rows changed. */
 export async function setSolventSpectrum(solventId: number, spectrumId: number | null): Promise<number> {
 	return db()('solvents').where({ id: solventId }).update({ spectrum_id: spectrumId, updated_at: db().fn.now() });
+}
+
+/** A public absorption spectrum a solvent may be linked to. */
+export interface LinkableSpectrum {
+	id: number;
+	name: string;
+	part: string;
+	solvent: string | null;
+	cas: string | null;
+	pathCm: number | null;
+}
+
+/** Public, not deleted absorption spectra (solvent parts first, then by name): the choices for a solvent link. */
+export async function listLinkableSpectra(): Promise<LinkableSpectrum[]> {
+	const rows = await db()('spectra')
+		.where({ visibility: 'public', kind: 'absorption' })
+		.whereNull('deleted_at')
+		.select('id', 'name', 'part', 'solvent', 'cas', 'path_cm')
+		.orderByRaw("part = 'solvent' desc")
+		.orderBy('name');
+	return rows.map((r) => ({ id: Number(r.id), name: String(r.name), part: String(r.part), solvent: r.solvent ?? null, cas: r.cas ?? null, pathCm: r.path_cm == null ? null : Number(r.path_cm) }));
 }

@@ -14,7 +14,7 @@ export interface SpectrumRow {
 	synonyms: string | null;
 	cas: string | null;
 	part: string;
-	kind: 'absorption' | 'transmission' | 'emission';
+	kind: 'absorption' | 'transmission' | 'emission' | 'reflectance';
 	solvent: string | null;
 	concentration_m: number | null;
 	path_cm: number | null;
@@ -36,6 +36,8 @@ export interface SpectrumRow {
 	file_sha256: string;
 	block_index: number;
 	block_label: string | null;
+	/** Time in a time series, s (rows-as-spectra tables); null otherwise. */
+	block_time_s?: number | null;
 	search_vector: Buffer;
 	lambda_max_nm: number | null;
 	value_at_max: number | null;
@@ -46,6 +48,10 @@ export interface SpectrumRow {
 	triplet_energy_kj_per_mol: number | null;
 	excited_state_potentials: string | null;
 	warnings: string | null;
+	/** longest-wavelength band maximum above noise, nm (absorption) */
+	longest_band_nm: number | null;
+	/** JSON DerivedExtra (services/spectraDerive.ts): stretches left out, noise σ, cut-off notes, similarity stretch */
+	derived_extra: string | null;
 	version: number;
 	deleted_at: Date | null;
 	created_at: Date;
@@ -62,9 +68,9 @@ export type NewSpectrumRow = Omit<SpectrumRow, 'id' | 'version' | 'deleted_at' |
 export const SUMMARY_COLUMNS = [
 	's.id', 's.group_id', 's.owner_id', 's.name', 's.synonyms', 's.cas', 's.part', 's.kind', 's.solvent', 's.concentration_m',
 	's.path_cm', 's.thickness_mm', 's.temperature_c', 's.instrument', 's.notes', 's.visibility', 's.x_unit_original',
-	's.y_unit_original', 's.y_unit', 's.point_count', 's.file_name', 's.file_sha256', 's.block_index', 's.block_label',
+	's.y_unit_original', 's.y_unit', 's.point_count', 's.file_name', 's.file_sha256', 's.block_index', 's.block_label', 's.block_time_s',
 	's.lambda_max_nm', 's.value_at_max', 's.edge_nm', 's.cutoff10_nm', 's.cutoff50_nm', 's.peaks', 's.triplet_energy_kj_per_mol',
-	's.excited_state_potentials', 's.warnings', 's.version', 's.deleted_at', 's.created_at', 's.updated_at',
+	's.excited_state_potentials', 's.warnings', 's.longest_band_nm', 's.derived_extra', 's.version', 's.deleted_at', 's.created_at', 's.updated_at',
 	'u.name as owner_name', 'g.name as group_name', 'g.slug as group_slug'
 ];
 
@@ -105,8 +111,8 @@ export async function insertSpectrum(trx: Knex | Knex.Transaction, row: NewSpect
 }
 
 /** The rows of `groupId` that already hold this file (any block), deleted ones included. */
-export async function findSpectraBySha(trx: Knex | Knex.Transaction, groupId: number, sha256: string): Promise<Pick<SpectrumRow, 'id' | 'name' | 'block_index' | 'deleted_at'>[]> {
-	return trx('spectra').where({ group_id: groupId, file_sha256: sha256 }).select('id', 'name', 'block_index', 'deleted_at');
+export async function findSpectraBySha(trx: Knex | Knex.Transaction, groupId: number, sha256: string): Promise<Pick<SpectrumRow, 'id' | 'name' | 'block_index' | 'deleted_at' | 'visibility' | 'owner_id'>[]> {
+	return trx('spectra').where({ group_id: groupId, file_sha256: sha256 }).select('id', 'name', 'block_index', 'deleted_at', 'visibility', 'owner_id');
 }
 
 /** One full row (all BLOBs) with owner and group names, deleted or not; undefined when missing. */

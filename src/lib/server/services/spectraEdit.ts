@@ -14,7 +14,7 @@ import { vectorToBuffer } from '../../spectra/grid';
 import { normaliseSpectrum } from '../../spectra/normalise';
 import type { RawSpectrum, XUnit, YUnit } from '../../spectra/types';
 import { writableSpectrum } from './spectraAccess';
-import { deriveForLibrary } from './spectraDerive';
+import { derivedColumns, deriveForLibrary } from './spectraDerive';
 import { checkPhysicalMetadata, issuesToApiError } from './spectraPrepare';
 import { spectrumToApi } from './spectraView';
 
@@ -32,11 +32,11 @@ function renormalised(row: SpectrumRow, c: number | null, l: number | null): Par
 	const raw: RawSpectrum = { label: row.block_label ?? row.name, index: row.block_index, x: bufferToFloat64(row.x_original), y: bufferToFloat64(row.y_original), xUnit: row.x_unit_original as XUnit, yUnit: row.y_unit_original as YUnit, kind: row.kind, metadata: {} };
 	const n = normaliseSpectrum(raw, { concentrationM: c ?? undefined, pathCm: l ?? undefined });
 	if (!n.ok) throw issuesToApiError(row.file_name, n.issues);
-	const { derived } = deriveForLibrary(n.value);
+	const { derived } = deriveForLibrary(n.value, { concentrationM: c, pathCm: l });
 	return {
 		x_nm: float64ToBuffer(n.value.x), y_normalised: float64ToBuffer(n.value.y), y_unit: n.value.yUnit, point_count: n.value.x.length,
 		search_vector: Buffer.from(vectorToBuffer(derived.searchVector)), lambda_max_nm: derived.lambdaMaxNm, value_at_max: derived.valueAtMax,
-		edge_nm: derived.edgeNm, cutoff10_nm: derived.cutoff10Nm, cutoff50_nm: derived.cutoff50Nm, peaks: JSON.stringify(derived.peaks)
+		edge_nm: derived.edgeNm, cutoff10_nm: derived.cutoff10Nm, cutoff50_nm: derived.cutoff50Nm, peaks: JSON.stringify(derived.peaks), ...derivedColumns(derived)
 	};
 }
 

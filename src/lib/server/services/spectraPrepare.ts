@@ -22,7 +22,11 @@ export interface PreparedSpectrum {
 }
 
 /** Codes of data that parse but cannot be physical (HTTP 422). */
-const PHYSICAL = new Set(['negative_transmittance', 'x_not_positive', 'duplicate_x_conflict', 'duplicate_x', 'invalid_concentration', 'invalid_path', 'transmittance_above_one', 'negative_k']);
+const PHYSICAL = new Set(['negative_transmittance', 'x_not_positive', 'duplicate_x_conflict', 'duplicate_x', 'invalid_concentration', 'invalid_path', 'transmittance_above_one', 'negative_k',
+	// delimited text (csvPhysical.ts): values that cannot be what the file or the caller says they are
+	'x_out_of_range', 'implausible_absorbance', 'implausible_transmittance', 'implausible_reflectance', 'implausible_epsilon']);
+/** Files that parse as tables but are not spectra (HTTP 415 with the reason). */
+const NOT_A_SPECTRUM = new Set(['unsupported_format', 'not_optical_table', 'optical_constants_table']);
 /** Codes that name a metadata field rather than a line. */
 const FIELD_OF: Record<string, string> = { invalid_concentration: 'concentrationM', invalid_path: 'pathCm', unit_kind_mismatch: 'yUnit', column_out_of_range: 'columns' };
 
@@ -37,7 +41,7 @@ export function issuesToApiError(filename: string, issues: ParseIssue[]): ApiErr
 	const errors = issues.filter((i) => i.severity === 'error');
 	const first = errors[0] ?? issues[0];
 	const core = statusForIssues(errors);
-	const status = core === 400 && errors.some((i) => PHYSICAL.has(i.code)) ? 422 : core;
+	const status = core === 400 && NOT_A_SPECTRUM.has(first?.code ?? '') ? 415 : core === 400 && errors.some((i) => PHYSICAL.has(i.code)) ? 422 : core;
 	const code = status === 413 ? 'too_large' : status === 415 ? 'unsupported_file' : status === 422 ? 'physically_invalid' : 'bad_file';
 	const where = first?.line && !/line \d/.test(first.message) ? ` (line ${first.line})` : '';
 	const message = `${filename}: ${first?.message ?? 'the file could not be read'}${where}`;
@@ -82,7 +86,7 @@ export function prepareSpectra(bytes: Uint8Array, filename: string, meta: Upload
 	for (const raw of parsed.value) {
 		const norm = normaliseSpectrum(raw);
 		if (!norm.ok) throw issuesToApiError(filename, norm.issues.map((i) => ({ ...i, block: i.block ?? raw.index })));
-		const d = deriveForLibrary(norm.value);
+		const d = deriveForLibrary(norm.value, { concentrationM: meta.concentrationM ?? raw.metadata.concentrationM, pathCm: meta.pathCm ?? raw.metadata.pathCm });
 		const label = parsed.value.length > 1 ? `${raw.label}: ` : '';
 		warnings.push(...norm.warnings.map((w) => ({ ...w, message: label + w.message })), ...d.warnings.map((w) => ({ ...w, message: label + w.message, block: raw.index })));
 		spectra.push({ raw, norm: norm.value, derived: d.derived, blockIndex: raw.column ?? raw.index });

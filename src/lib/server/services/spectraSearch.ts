@@ -4,6 +4,8 @@
  * names, synonyms, CAS and tags, then server-side sorting and paging.
  */
 import Fuse from 'fuse.js';
+import { casEquals, classifyCasQuery } from '../../cas';
+import { ApiError } from '../http';
 import { bufferToVector } from '../../spectra/grid';
 import type { SpectrumListQuery } from '../../schemas/spectra';
 import { findGroupIds, listSpectrumSummaries, type SpectrumRow } from '../db/spectra';
@@ -91,7 +93,10 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 	const tags = await tagsOfSpectra(rows.map((r) => r.id));
 	let cands: Candidate[] = rows.map((row) => ({ row, name: row.name, synonyms: JSON.parse(row.synonyms || '[]'), cas: row.cas ?? '', tags: tags.get(row.id) ?? [] }));
 	const scores = new Map<number, number>();
-	if (q.q) {
+	const casQuery = q.q ? classifyCasQuery(q.q) : null;
+	if (casQuery?.kind === 'invalid-cas') throw new ApiError(400, 'invalid', `q: ${casQuery.message}`, { field: 'q' });
+	if (casQuery?.kind === 'cas') cands = cands.filter((c) => casEquals(c.cas, casQuery.cas)); // CAS look-up: exact, never fuzzy
+	else if (q.q) {
 		const hits = new Fuse(cands, FUSE_OPTIONS).search(q.q);
 		for (const h of hits) scores.set(h.item.row.id, h.score ?? 0);
 		cands = hits.map((h) => h.item);

@@ -5,6 +5,7 @@ import { ApiError } from '../http';
 import { listSpectrumSummaries } from '../db/spectra';
 import { visibleSpectrum } from './spectraAccess';
 import { spectrumToApi } from './spectraView';
+import { parseDerivedExtra } from './spectraDerive';
 
 /**
  * Ranks spectra of the same kind by shape similarity to `to`.
@@ -17,7 +18,9 @@ export async function similarSpectra(locals: App.Locals, toParam: string | null,
 	if (!Number.isInteger(limit) || limit < 1 || limit > 50) throw new ApiError(400, 'invalid', 'limit: a whole number from 1 to 50', { field: 'limit' });
 	const { caller, row } = await visibleSpectrum(locals, toParam);
 	const rows = (await listSpectrumSummaries(caller.reader, { kind: row.kind, withVector: true })).filter((r) => r.id !== row.id);
-	const ranked = rankSimilar(bufferToVector(row.search_vector), rows.map((r) => ({ id: r.id, vector: bufferToVector(r.search_vector) })), limit);
+	// compared on the stretch both are measured, unsaturated and above noise (overlapNm says how long it is)
+	const stretch = (r: { derived_extra: string | null }) => parseDerivedExtra(r.derived_extra)?.similarity ?? null;
+	const ranked = rankSimilar(bufferToVector(row.search_vector), rows.map((r) => ({ id: r.id, vector: bufferToVector(r.search_vector), stretch: stretch(r) })), limit, stretch(row));
 	const byId = new Map(rows.map((r) => [r.id, r]));
-	return { to: row.id, items: ranked.map((h) => ({ ...spectrumToApi(byId.get(h.id)!), similarity: h.score })) };
+	return { to: row.id, items: ranked.map((h) => ({ ...spectrumToApi(byId.get(h.id)!), similarity: h.score, overlapNm: h.overlapNm })) };
 }

@@ -16,6 +16,7 @@ import { addSpectrumTags, cleanTags, findTagIds, insertMissingTags } from '../db
 import type { PreparedSpectrum } from './spectraPrepare';
 import { assertFiniteSpectra } from './spectraFinite';
 import { spectrumToApi } from './spectraView';
+import { derivedColumns } from './spectraDerive';
 
 export interface StoreInput {
 	groupId: number;
@@ -27,7 +28,7 @@ export interface StoreInput {
 	warnings: ParseIssue[];
 }
 
-const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp' } as const;
+const DEFAULT_PART = { absorption: 'substrate', transmission: 'wall', emission: 'lamp', reflectance: 'photocatalyst' } as const;
 
 /** The name of the i-th spectrum of a file: metadata.names[i], metadata.name, the block/column title, the file name. */
 function nameFor(input: StoreInput, s: PreparedSpectrum, i: number): string {
@@ -73,6 +74,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		file_sha256: sha256,
 		block_index: s.blockIndex,
 		block_label: s.raw.label.slice(0, 200),
+		...(s.raw.timeS !== undefined ? { block_time_s: s.raw.timeS } : {}),
 		search_vector: Buffer.from(vectorToBuffer(s.derived.searchVector)),
 		lambda_max_nm: s.derived.lambdaMaxNm,
 		value_at_max: s.derived.valueAtMax,
@@ -80,6 +82,7 @@ function rowFor(input: StoreInput, s: PreparedSpectrum, i: number, sha256: strin
 		cutoff10_nm: s.derived.cutoff10Nm,
 		cutoff50_nm: s.derived.cutoff50Nm,
 		peaks: JSON.stringify(s.derived.peaks),
+		...derivedColumns(s.derived),
 		triplet_energy_kj_per_mol: m.tripletEnergyKjPerMol ?? null,
 		excited_state_potentials: JSON.stringify(m.excitedStatePotentials ?? []),
 		warnings: JSON.stringify(warnings.filter((w) => w.block === undefined || w.block === s.raw.index).map(({ code, message, line }) => ({ code, message, line })))
@@ -99,6 +102,9 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 	const ids = await conn.transaction(async (trx) => {
 		const existing = await findSpectraBySha(trx, input.groupId, sha);
 		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
+		if (clash && clash.visibility === 'private' && clash.owner_id !== input.ownerId)
+			// Someone else's private spectrum: never name it or give its id.
+			throw new ApiError(409, 'duplicate', `${input.filename} is already stored in this group by another member who has not shared it; ask your group lead to have it shared with you`, { field: 'file' });
 		if (clash)
 			throw new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
 		const tagNames = cleanTags(input.meta.tags ?? []);

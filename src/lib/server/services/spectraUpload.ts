@@ -9,7 +9,8 @@ import { defaultGroupFor, requireGroupRole, requireUser } from '../policy';
 import { uploadMetadataSchema, type UploadMetadata } from '../../schemas/spectra';
 import { inspectDelimited } from '../../spectra/parse/csvInspect';
 import { decodeText } from '../../spectra/parse/index';
-import { prepareSpectra, type PreparedSpectrum } from './spectraPrepare';
+import { uploadLimitBytes, type PreparedSpectrum } from './spectraPrepare';
+import { prepareSpectraInWorker } from '../parse/pool';
 import { storeSpectra } from './spectraStore';
 
 /** Reads the optional `metadata` form field (JSON). */
@@ -80,7 +81,9 @@ export async function uploadSpectrumFile(locals: App.Locals, file: unknown, meta
 	const f = file as File;
 	const bytes = new Uint8Array(await f.arrayBuffer());
 	const filename = f.name || 'upload';
-	const { spectra, warnings } = prepareSpectra(bytes, filename, meta);
+	if (bytes.byteLength > uploadLimitBytes()) throw new ApiError(413, 'too_large', `${filename}: ${(bytes.byteLength / 1048576).toFixed(1)} MB is above the ${uploadLimitBytes() / 1048576} MB limit for one file`, { field: 'file' });
+	// Parsed in a worker thread with a memory and time limit: no file can block or stop the server.
+	const { spectra, warnings } = await prepareSpectraInWorker(bytes, filename, meta);
 	if (preview) {
 		const text = decodeText(bytes.subarray(0, 200_000));
 		const table = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6) : null;

@@ -1,5 +1,6 @@
 /** Shapes `spectra` rows for the API and the pages (camelCase, units in names, JSON columns parsed). */
 import type { SpectrumRow } from '../db/spectra';
+import { derivedForApi } from './spectraDerivedView';
 
 const parseJson = <T>(s: string | null | undefined, fallback: T): T => {
 	if (!s) return fallback;
@@ -58,6 +59,7 @@ export function spectrumToApi(row: SpectrumRow, tags: string[] = [], extra: { ca
 		pointCount: row.point_count,
 		lambdaMaxNm: row.lambda_max_nm,
 		valueAtMax: row.value_at_max,
+		...derivedForApi(row),
 		epsilonAtMax: row.y_unit === 'epsilon' ? row.value_at_max : null,
 		edgeNm: row.edge_nm,
 		cutoff10Nm: row.cutoff10_nm,
@@ -70,6 +72,8 @@ export function spectrumToApi(row: SpectrumRow, tags: string[] = [], extra: { ca
 		fileSha256: row.file_sha256,
 		blockIndex: row.block_index,
 		blockLabel: row.block_label,
+		/** Time series: the spectrum's time in seconds (rows-as-spectra tables), else null. */
+		blockTimeS: row.block_time_s ?? null,
 		version: row.version,
 		deletedAt: row.deleted_at ? new Date(row.deleted_at).toISOString() : null,
 		createdAt: new Date(row.created_at).toISOString(),

@@ -14,11 +14,20 @@ export function parseThicknessMm(raw: string | null, material: WallMaterial): nu
 	return d;
 }
 
-/** The wall's total transmittance (Fresnel included) on the 1 nm grid, and its 10 % / 50 % cut-offs. */
+/** The wall's total transmittance (Fresnel included) on the 1 nm grid, its 10 % / 50 % cut-offs and, when null, why. */
 export function wallTransmissionCurve(material: WallMaterial, thicknessMm: number) {
 	const { fromNm, stepNm, count } = TRANSMISSION_GRID;
 	const y = wallTransmissionOnGrid(material.model, thicknessMm, fromNm, stepNm, count);
 	const x = Array.from({ length: count }, (_, i) => fromNm + i * stepNm);
-	const { cutoff10Nm, cutoff50Nm } = wallCutoffsNm(material.model, thicknessMm);
-	return { x, y: Array.from(y, (v) => Math.round(v * 1e6) / 1e6), cutoff10Nm, cutoff50Nm };
+	const c = wallCutoffsNm(material.model, thicknessMm);
+	return {
+		x,
+		y: Array.from(y, (v) => Math.round(v * 1e6) / 1e6),
+		cutoff10Nm: c.cutoff10Nm,
+		cutoff50Nm: c.cutoff50Nm,
+		// why a cut-off is null: "below the data range, T(300 nm) = 81 %" (the data limit is never reported as a cut-off)
+		cutoff10Note: c.cutoff10Note ?? null,
+		cutoff50Note: c.cutoff50Note ?? null,
+		dataFromNm: Number.isFinite(c.dataFromNm) ? c.dataFromNm : null
+	};
 }

@@ -1,18 +1,19 @@
 /**
  * Puts the Window finder's ingredients on the 0.5 nm computation grid (PRODUCT.md): species ε from library spectra,
  * solvent absorbance per cm (measured spectrum when linked, else the cut-off edge model), wall transmission at the
- * chosen thickness, lamp photon flux per nm (scaled to the latest calibration when one exists).
+ * chosen thickness, lamp photon flux per nm (from the latest calibration when one exists: lampCalibrations.ts).
  */
 import { COMPUTATION_GRID, resampleOnto } from '$lib/irradiation/wavelengthGrid';
-import { solventAbsorbanceOnGrid } from '$lib/irradiation/solvents';
 import { wallTransmissionOnGrid } from '$lib/irradiation/walls';
 import { getSolvent } from '$lib/server/db/solvents';
 import { getWallMaterial } from '$lib/server/db/wallMaterials';
-import { findLamp, listLampCalibrations, listLamps } from '$lib/server/db/lamps';
-import { findSpectrumById, type SpectrumRow } from '$lib/server/db/spectra';
+import { findLamp, listLamps } from '$lib/server/db/lamps';
+import type { SpectrumRow } from '$lib/server/db/spectra';
 import { bufferToFloat64 } from '$lib/server/db/spectraBlobs';
 import { ApiError } from '$lib/server/http';
+import { plannerPhotonFlux } from './lampCalibrations';
 import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
+import { solventCurveOnGrid } from './solventLink';
 import { visibleSpectrum, type Caller } from './spectraAccess';
 
 export const GRID = COMPUTATION_GRID;
@@ -52,19 +53,9 @@ export async function absorberOnGrid(locals: App.Locals, spectrumId: number, fie
 export async function solventOnGrid(solventId: number, field = 'solvent.id') {
 	const s = await getSolvent(solventId);
 	if (!s) throw unprocessable(field, `${field}: no solvent with id ${solventId}.`);
-	if (s.spectrumId) {
-		const row = await findSpectrumById(s.spectrumId);
-		if (row && !row.deleted_at && row.kind === 'absorption') {
-			const x = bufferToFloat64(row.x_nm);
-			const y = bufferToFloat64(row.y_normalised);
-			const l = Number(row.path_cm) > 0 ? Number(row.path_cm) : 1;
-			const a = resampleOnto(x, y, GRID, 0);
-			for (let i = 0; i < a.length; i++) a[i] = Math.max(0, a[i] / l);
-			return { solvent: s, absorbancePerCm: a, basis: `measured spectrum #${row.id}` as string };
-		}
-	}
-	const a = solventAbsorbanceOnGrid(s.cutoffNm, GRID.fromNm, GRID.stepNm, GRID.count, 1);
-	return { solvent: s, absorbancePerCm: a, basis: `cut-off edge model (λc = ${s.cutoffNm} nm; ${s.status})` };
+	// measured Library spectrum when the solvent is linked to one, else the cut-off edge model (services/solventLink.ts)
+	const curve = await solventCurveOnGrid(s, GRID);
+	return { solvent: s, absorbancePerCm: curve.absorbancePerCm, basis: curve.basis, spectrumId: curve.spectrumId, spectrumName: curve.spectrumName, basisNote: curve.note };
 }
 
 /** Wall transmission on the grid at `thicknessMm` (reference materials and the caller's groups' own). */
@@ -92,16 +83,11 @@ export async function lampsOnGrid(locals: App.Locals, caller: Caller, ids: numbe
 	const out = [];
 	for (const lamp of lamps) {
 		const model = await resolveLampModel(lamp.model, locals);
-		const d = describeLamp(model, vesselPowerW(lamp), GRID);
-		let q = d.photonFluxPerNm;
-		let basis = 'model × power × coupling';
-		const [latest] = await listLampCalibrations(lamp.id);
-		if (latest && d.photonFluxEinsteinPerS > 0) {
-			const k = latest.photonFluxEinsteinPerS / d.photonFluxEinsteinPerS;
-			q = q.map((v) => v * k);
-			basis = `calibrated (${latest.method}, ${new Date(latest.measuredAt).toISOString().slice(0, 10)})`;
-		}
-		out.push({ lamp, model, photonFluxPerNm: q, peakNm: d.peakNm, cautions: d.cautions, basis });
+		// cautions from what the lamp itself emits (lamp.powerW), not from the power coupled into the vessel
+		const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);
+		// calibration (lamps' own module): the flux entering through the calibration wall, the wall applied once
+		const planned = await plannerPhotonFlux(lamp, d.photonFluxPerNm, groupIds);
+		out.push({ lamp, model, photonFluxPerNm: planned.photonFluxPerNm, peakNm: d.peakNm, cautions: d.cautions, basis: planned.basis.photonFluxBasis, calibration: planned });
 	}
 	return out;
 }

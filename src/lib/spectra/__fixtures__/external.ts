@@ -5,7 +5,12 @@ import { normaliseSpectrum } from '../normalise';
 import { parseSpectrumFile, type ParseFileOptions } from '../parse/index';
 import type { NormalisedSpectrum, RawSpectrum, Result } from '../types';
 
-export const externalPath = (rel: string) => path.resolve(process.cwd(), '../shared/external', rel);
+/** ../shared/external from the checkout; a worktree one level deeper (wt/NAME) finds it two levels up. */
+const externalRoot = [process.env.WINDOWSILL_EXTERNAL_DIR, '../shared/external', '../../shared/external']
+	.filter((p): p is string => !!p)
+	.map((p) => path.resolve(process.cwd(), p))
+	.find((p) => fs.existsSync(p)) ?? path.resolve(process.cwd(), '../shared/external');
+export const externalPath = (rel: string) => path.resolve(externalRoot, rel);
 export const readExternal = (rel: string) => new Uint8Array(fs.readFileSync(externalPath(rel)));
 
 /** Parses a shared file and fails the test with its issues when it does not parse. */

@@ -5,6 +5,7 @@ export const JCAMP_Y_UNITS: Record<NormalisedSpectrum['yUnit'], string> = {
 	absorbance: 'ABSORBANCE',
 	epsilon: 'MOLAR ABSORPTIVITY (M-1 CM-1)',
 	transmittance: 'TRANSMITTANCE',
+	reflectance: 'REFLECTANCE',
 	relative: 'RELATIVE INTENSITY',
 	'W/nm': 'W/NM',
 	'W/m2/nm': 'W/M2/NM',
@@ -15,6 +16,7 @@ export const CSV_Y_HEADERS: Record<NormalisedSpectrum['yUnit'], string> = {
 	absorbance: 'absorbance',
 	epsilon: 'epsilon (M-1 cm-1)',
 	transmittance: 'transmittance (fraction)',
+	reflectance: 'reflectance (fraction)',
 	relative: 'relative emission',
 	'W/nm': 'W/nm',
 	'W/m2/nm': 'W/m2/nm',
@@ -24,5 +26,6 @@ export const CSV_Y_HEADERS: Record<NormalisedSpectrum['yUnit'], string> = {
 export const JCAMP_DATA_TYPE: Record<SpectrumKind, string> = {
 	absorption: 'UV/VIS SPECTRUM',
 	transmission: 'UV/VIS SPECTRUM',
-	emission: 'EMISSION SPECTRUM'
+	emission: 'EMISSION SPECTRUM',
+	reflectance: 'UV/VIS REFLECTANCE SPECTRUM'
 };

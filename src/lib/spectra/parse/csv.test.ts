@@ -34,7 +34,7 @@ describe('parseDelimited on invented fixtures', () => {
 		expect(r.value[0].metadata.owner).toBe('invented photochemistry group');
 	});
 	it('columns picks one y column; an out-of-range column is refused', () => {
-		const t = 'nm,a,b,c\n' + [1, 2, 3, 4, 5].map((i) => `${300 + i},${i},${2 * i},${3 * i}`).join('\n');
+		const t = 'nm,a,b,c\n' + [1, 2, 3, 4, 5].map((i) => `${300 + i},${i / 10},${(2 * i) / 10},${(3 * i) / 10}`).join('\n');
 		expect(ok(parseDelimited(t, { columns: [3] })).value.map((s) => s.label)).toEqual(['c']);
 		expect(parseDelimited(t, { columns: [7] }).ok).toBe(false);
 	});
@@ -122,9 +122,19 @@ describe('instrument exports with one x/y pair per sample', () => {
 });
 
 describe('photon-energy axes', () => {
-	it('refuses an x column in eV with its line, instead of reading 1.5–4 as micrometres', () => {
-		const r = parseDelimited('Energy (eV),Abs\n2.0,0.1\n2.5,0.2\n3.0,0.4\n3.5,0.2\n4.0,0.1\n');
-		expect(r.ok).toBe(false);
-		if (!r.ok) expect(r.issues[0]).toMatchObject({ code: 'unsupported_x_unit', line: 1 });
+	it('reads an x column in eV as λ = hc/E (not 1.5–4 as micrometres); absorbance needs no Jacobian', () => {
+		const r = ok(parseDelimited('Energy (eV),Abs\n2.0,0.1\n2.5,0.2\n3.0,0.4\n3.5,0.2\n4.0,0.1\n'));
+		const s = r.value[0];
+		expect(s.xUnit).toBe('nm');
+		// hc/e = 1239.841984 eV nm (CODATA 2018): 2.0 eV ↔ 619.92 nm, 4.0 eV ↔ 309.96 nm
+		expect(s.x[0]).toBeCloseTo(619.921, 3);
+		expect(s.x[4]).toBeCloseTo(309.96, 2);
+		expect(Array.from(s.y)).toEqual([0.1, 0.2, 0.4, 0.2, 0.1]);
+	});
+	it('an emission density per eV gains the Jacobian hc/λ² when moved to per nm', () => {
+		const r = ok(parseDelimited('Energy (eV),Emission (W m-2 eV-1)\n2.0,1\n2.5,2\n3.0,3\n3.5,2\n4.0,1\n'));
+		const s = r.value[0];
+		// I_λ = I_E·hc/λ² (change of variable); at 2.0 eV: 1239.841984/619.920992² = 3.2262e-3 per nm
+		expect(s.y[0]).toBeCloseTo(1239.841984 / 619.920992 ** 2, 8);
 	});
 });

@@ -21,6 +21,8 @@ export interface ParseFileOptions {
 	pathCm?: number;
 	/** Points and spectra one file may hold (default 2 M points, 500 spectra; see parseLimits.ts). */
 	limits?: ParseLimits;
+	/** Delimited text only: one spectrum per column or per row (default: detected; see csvLayout.ts). */
+	layout?: 'columns' | 'rows';
 }
 
 const unsupported = (message: string): Result<RawSpectrum[]> => ({ ok: false, issues: [{ severity: 'error', code: 'unsupported_format', message }] });
@@ -76,17 +78,18 @@ function utf16Encoding(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | undefined {
  */
 export function parseSpectrumFile(bytes: Uint8Array, filename: string, options: ParseFileOptions = {}): Result<RawSpectrum[]> {
 	try {
-		if (!bytes.length) return unsupported(`${filename}: the file is empty`);
+		if (!bytes.length) return unsupported(`the file is empty`);
 		const sig = binarySignature(bytes);
-		if (sig) return unsupported(`${filename}: this is ${sig}, not text; upload JCAMP-DX or delimited text (CSV, semicolon, tab)`);
+		if (sig) return unsupported(`this is ${sig}, not text; upload JCAMP-DX or delimited text (CSV, semicolon, tab, spaces)`);
 		const text = decodeText(bytes);
-		if (text === undefined) return unsupported(`${filename}: binary content; upload JCAMP-DX or delimited text (CSV, semicolon, tab)`);
+		if (text === undefined) return unsupported(`binary content; upload JCAMP-DX or delimited text (CSV, semicolon, tab, spaces)`);
 		const isJcamp = /^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096));
 		const units = { kind: options.kind, xUnit: options.xUnit, yUnit: options.yUnit };
 		const limits = options.limits ?? DEFAULT_PARSE_LIMITS;
-		const r = checkParsedSpectra(isJcamp ? parseJcamp(text, units, limits) : parseDelimited(text, { ...units, columns: options.columns }), limits);
+		const r = checkParsedSpectra(isJcamp ? parseJcamp(text, units, limits) : parseDelimited(text, { ...units, columns: options.columns, layout: options.layout, filename, concentrationM: options.concentrationM, pathCm: options.pathCm }), limits);
 		if (!r.ok) {
-			if (!isJcamp && r.issues.some((i) => i.code === 'unsupported_format')) return unsupported(`${filename}: neither JCAMP-DX nor a table of numbers`);
+			// the reader's own reason (not a table, not an optical spectrum, optical constants) is kept; the API envelope adds the file name once
+			if (!isJcamp && r.issues.some((i) => i.code === 'unsupported_format')) return unsupported(`neither JCAMP-DX nor a table of numbers: ${r.issues[0].message}`);
 			return r;
 		}
 		for (const s of r.value) {

@@ -20,13 +20,15 @@ const KIND_OF: Record<YUnit, SpectrumKind> = {
 	'log-epsilon': 'absorption',
 	transmittance: 'transmission',
 	'transmittance-percent': 'transmission',
+	reflectance: 'reflectance',
+	'reflectance-percent': 'reflectance',
 	relative: 'emission',
 	'W/nm': 'emission',
 	'W/m2/nm': 'emission',
 	counts: 'emission'
 };
 
-const DEFAULT_Y: Record<SpectrumKind, YUnit> = { absorption: 'absorbance', transmission: 'transmittance', emission: 'relative' };
+const DEFAULT_Y: Record<SpectrumKind, YUnit> = { absorption: 'absorbance', transmission: 'transmittance', emission: 'relative', reflectance: 'reflectance' };
 
 export interface ResolvedUnits {
 	kind: SpectrumKind;

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { apiHandler, readJson, zodToApiError } from '$lib/server/http';
+import { ApiError, apiHandler, readJson, zodToApiError } from '$lib/server/http';
 import { requireUser } from '$lib/server/policy';
 import { createTokenSchema } from '$lib/schemas/auth';
 import { createApiToken } from '$lib/server/auth/api-tokens';
@@ -15,6 +15,8 @@ export const GET: RequestHandler = apiHandler(async ({ locals }) => {
 /** POST /api/tokens `{ name }` → 201 `{ token, id, name }`; the token is shown only this once. */
 export const POST: RequestHandler = apiHandler(async ({ locals, request }) => {
 	const user = requireUser(locals);
+	// Tokens cannot make tokens: a stolen token must not be able to outlive its own revocation.
+	if (locals.session?.via !== 'cookie') throw new ApiError(403, 'session_required', 'Create API tokens from a signed-in browser session, not with a token.');
 	const parsed = createTokenSchema.safeParse(await readJson(request));
 	if (!parsed.success) throw zodToApiError(parsed.error);
 	const t = await createApiToken(user.id, parsed.data.name);

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { apiHandler, ApiError, readJson, zodToApiError } from '$lib/server/http';
 import { signInSchema } from '$lib/schemas/auth';
-import { checkCredentials, SIGNIN_FAILED } from '$lib/server/auth/signin';
-import { createSession } from '$lib/server/auth/session';
+import { checkCredentials, DEVICE_COOKIE, SIGNIN_FAILED } from '$lib/server/auth/signin';
+import { createSession, setDeviceCookie } from '$lib/server/auth/session';
 import { clientIp } from '$lib/server/auth/guard';
 import type { RequestHandler } from './$types';
 
@@ -10,7 +10,7 @@ import type { RequestHandler } from './$types';
 export const POST: RequestHandler = apiHandler(async (event) => {
 	const parsed = signInSchema.safeParse(await readJson(event.request));
 	if (!parsed.success) throw zodToApiError(parsed.error);
-	const r = await checkCredentials(parsed.data.email, parsed.data.password, clientIp(event));
+	const r = await checkCredentials(parsed.data.email, parsed.data.password, clientIp(event), event.cookies.get(DEVICE_COOKIE));
 	if (!r.ok && r.reason === 'throttled') {
 		return json(
 			{ error: { code: 'throttled', message: `Too many attempts. Try again in ${r.retryAfterS} s.`, retryAfterS: r.retryAfterS } },
@@ -19,5 +19,6 @@ export const POST: RequestHandler = apiHandler(async (event) => {
 	}
 	if (!r.ok) throw new ApiError(401, 'invalid_credentials', SIGNIN_FAILED);
 	await createSession(r.user.id, event.cookies, event.url);
+	setDeviceCookie(event.cookies, event.url, DEVICE_COOKIE, r.deviceToken);
 	return json({ user: { id: r.user.id, email: r.user.email, name: r.user.name, siteRole: r.user.siteRole, emailVerified: r.user.emailVerified } });
 });

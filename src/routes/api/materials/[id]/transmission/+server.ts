@@ -5,7 +5,7 @@ import { apiHandler, notFound } from '$lib/server/http';
 import { parseThicknessMm, wallTransmissionCurve } from '$lib/server/services/wallTransmission';
 import type { RequestHandler } from './$types';
 
-/** GET /api/materials/:id/transmission?thicknessMm= — anyone: `{ x, y, cutoff10Nm, cutoff50Nm }` (y = total T, 0–1). */
+/** GET /api/materials/:id/transmission?thicknessMm= — anyone: `{ x, y, cutoff10Nm, cutoff50Nm, cutoff10Note, cutoff50Note, dataFromNm }` (y = total T, 0–1; a null cut-off has a note). */
 export const GET: RequestHandler = apiHandler(async ({ params, url, locals }) => {
 	const id = Number(params.id);
 	const groupIds = (await membershipsOf(locals.user?.id)).map((m) => m.groupId);
