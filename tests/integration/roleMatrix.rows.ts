@@ -184,5 +184,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'change decision of unknown plan form', method: 'POST', path: '/plans/999999?/decision', kind: 'action', form: { version: '1' }, expect: all(303, 404) },
 	// ---- reactions: measured quantum yields ----
 	{ name: 'quantum yield, empty body', method: 'POST', path: '/api/quantum-yield', kind: 'api', json: {}, expect: all(401, 400) },
-	{ name: 'quantum-yield page', method: 'GET', path: '/library/quantum-yield', kind: 'page', expect: all(303, 200) }
+	{ name: 'quantum-yield page', method: 'GET', path: '/library/quantum-yield', kind: 'page', expect: all(303, 200) },
+	// ---- jcamp: several spectra as one JCAMP-DX LINK file ----
+	{ name: 'spectra LINK export', method: 'GET', path: '/api/spectra/export?ids=1&format=jcamp', kind: 'api', expect: demoGroupApi(200) }
 ];

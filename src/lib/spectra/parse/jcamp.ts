@@ -58,7 +58,7 @@ function readBlock(lines: string[], b: JcampBlock, index: number, nBlocks: numbe
 	if (notOptical) {
 		const said = [dataType && `DATA TYPE=${dataType}`, xLabel && `XUNITS=${xLabel}`, yLabel && `YUNITS=${yLabel}`].filter(Boolean).join(', ');
 		const line = dt.notOptical ? lineOf('DATATYPE') : lineOf('XUNITS');
-		return { issues, refusal: { severity: 'error', code: 'not_optical_spectrum', message: `${what}: ${notOptical}, not an optical (UV–vis) spectrum (${said}); not imported`, line, block } };
+		return { issues, refusal: { severity: 'error', code: 'not_optical_spectrum', message: `${nBlocks > 1 ? `${what}: ` : 'this is '}${notOptical}, not an optical (UV–vis) spectrum (${said}); not imported`, line, block } };
 	}
 	const key = ['XYPOINTS', 'PEAKTABLE', 'XYDATA'].find((k) => b.ldr.has(k));
 	if (!key) {
@@ -113,8 +113,8 @@ function readBlock(lines: string[], b: JcampBlock, index: number, nBlocks: numbe
 	if (inside < 2 && minNm <= maxNm) {
 		const lo = num4(Math.min(...x)), hi = num4(Math.max(...x));
 		const message = fileX || options.xUnit
-			? `${what}: ${dt.name}, ${units.xUnit === 'cm-1' ? `${lo}–${hi} cm⁻¹ = ` : ''}${describeNmRange(minNm, maxNm)}: outside ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`
-			: `${what}: ${dt.name} without an x unit (no ##XUNITS) whose x runs ${lo}–${hi}: in nm, µm or cm⁻¹ none of it lies within ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`;
+			? `${nBlocks > 1 ? `${what}: ` : ''}${dt.name}, ${units.xUnit === 'cm-1' ? `${lo}–${hi} cm⁻¹ = ` : ''}${describeNmRange(minNm, maxNm)}: outside ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`
+			: `${nBlocks > 1 ? `${what}: ` : ''}${dt.name} without an x unit (no ##XUNITS) whose x runs ${lo}–${hi}: in nm, µm or cm⁻¹ none of it lies within ${GRID_NM[0]}–${GRID_NM[1]} nm; not imported`;
 		return { issues, refusal: { severity: 'error', code: 'outside_optical_range', message, line: dataLine + 1, block } };
 	}
 	if (dt.infrared && !options.kind && units.xUnit !== 'cm-1')

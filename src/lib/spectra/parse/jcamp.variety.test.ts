@@ -121,3 +121,13 @@ describe('jcamp/ (the UV–vis files) still read', () => {
 		expect(r.value[0].metadata.title).toBe('Aquation of trans-[Co(en)2Cl2]+');
 	});
 });
+
+describe('the parse result crosses a worker-thread boundary unchanged', () => {
+	it('structuredClone of a LINK result and of a refusal deep-equals the original (typed arrays, plain issues)', () => {
+		for (const f of ['jcamp/cobalt-aquation-kinetics-5-blocks.jdx', 'jcamp-variety/iv-curve-volts.jdx']) {
+			const r = parseSpectrumFile(readExternal(f), f);
+			expect(structuredClone(r)).toEqual(r);
+		}
+	});
+});
+

@@ -64,69 +64,92 @@ export function usesCompression(lines: string[], from: number, to: number): bool
 	return false;
 }
 
-/** Splits one data line into tokens; returns an error message naming the bad character. */
+/** Character classes for the tokenizer: 1 digit, 2 '.', 3 sign, 4 separator, 5 SQZ, 6 DIF, 7 DUP, 8 '?', 9 e/E. */
+const CLASS = new Uint8Array(128);
+for (let c = 48; c <= 57; c++) CLASS[c] = 1;
+CLASS[46] = 2;
+CLASS[43] = CLASS[45] = 3;
+for (const c of ' \t,;\f\v') CLASS[c.charCodeAt(0)] = 4;
+for (const c of SQZ_POS + SQZ_NEG) CLASS[c.charCodeAt(0)] = 5;
+for (const c of DIF_POS + DIF_NEG) CLASS[c.charCodeAt(0)] = 6;
+for (const c of DUP) CLASS[c.charCodeAt(0)] = 7;
+CLASS[63] = 8;
+const LETTER_VALUE = new Int8Array(128);
+for (let k = 0; k < 10; k++) (LETTER_VALUE[SQZ_POS.charCodeAt(k)] = k), (LETTER_VALUE[DIF_POS.charCodeAt(k)] = k);
+for (let k = 0; k < 9; k++) (LETTER_VALUE[SQZ_NEG.charCodeAt(k)] = -(k + 1)), (LETTER_VALUE[DIF_NEG.charCodeAt(k)] = -(k + 1)), (LETTER_VALUE[DUP.charCodeAt(k)] = k + 1);
+
+/**
+ * Splits one data line into tokens; returns an error message naming the bad character.
+ * @param compressed - true when the block uses ASDF letters (then e/E are SQZ −5/+5, never exponents)
+ */
 export function tokenizeAsdf(text: string, compressed: boolean): Token[] | string {
 	const out: Token[] = [];
-	let cur: Token | null = null;
-	const flush = () => {
-		if (cur) out.push(cur);
-		cur = null;
-	};
-	for (let i = 0; i < text.length; i++) {
-		const c = text[i];
-		if (c === ' ' || c === '\t' || c === ',' || c === ';' || c === '\f' || c === '\v') {
-			flush();
+	let kind: Token['kind'] | null = null;
+	let prefix = '';
+	let from = 0;
+	let dot = false;
+	let exp = false;
+	const n = text.length;
+	for (let i = 0; i <= n; i++) {
+		const code = i < n ? text.charCodeAt(i) : 32;
+		let cls = code < 128 ? CLASS[code] : 0;
+		if ((code === 101 || code === 69) && !compressed) cls = 9;
+		if (cls === 1) {
+			if (kind === null) (kind = 'abs'), (prefix = ''), (from = i), (dot = false), (exp = false);
 			continue;
 		}
-		if ((c >= '0' && c <= '9') || c === '.') {
-			if (!cur) cur = { kind: 'abs', text: '' };
-			if (cur.kind === 'missing') return `a digit after "?" at column ${i + 1}`;
-			if (c === '.' && (cur.text.includes('.') || /[eE]/.test(cur.text))) return `a second decimal point at column ${i + 1}`;
-			cur.text += c;
+		if (cls === 2) {
+			if (kind === null) (kind = 'abs'), (prefix = ''), (from = i), (dot = false), (exp = false);
+			else if (dot || exp || kind === 'dup') return `a misplaced decimal point at column ${i + 1}`;
+			dot = true;
 			continue;
 		}
-		if (c === '+' || c === '-') {
-			// The sign of an exponent (`4.6e-05`) stays in its number; any other sign starts a new value (PAC).
-			if (cur && cur.kind === 'abs' && /[eE]$/.test(cur.text)) {
-				cur.text += c;
+		if (cls === 9) {
+			// An exponent only right after a digit or '.' of a plain number, followed by [+-]digit or a digit.
+			const next = i + 1 < n ? text.charCodeAt(i + 1) : 0;
+			const after = next === 43 || next === 45 ? (i + 2 < n ? text.charCodeAt(i + 2) : 0) : next;
+			if (kind === 'abs' && !exp && after >= 48 && after <= 57) {
+				exp = true;
+				if (next === 43 || next === 45) i++;
 				continue;
 			}
-			flush();
-			cur = { kind: 'abs', text: c };
+			cls = 5; // not an exponent: the SQZ letter e/E
+		}
+		// Any other character ends the current token.
+		if (kind !== null) {
+			out.push({ kind, text: prefix + text.slice(from, i) });
+			kind = null;
+		}
+		if (cls === 4 || i === n) continue;
+		if (cls === 3) {
+			kind = 'abs';
+			prefix = code === 45 ? '-' : '';
+			from = i + 1;
+			dot = false;
+			exp = false;
+			// A bare sign must be followed by a digit or '.'.
+			const next = i + 1 < n ? CLASS[text.charCodeAt(i + 1)] ?? 0 : 0;
+			if (next !== 1 && next !== 2) return `a sign without a number at column ${i + 1}`;
 			continue;
 		}
-		if (!compressed && (c === 'e' || c === 'E') && cur && cur.kind === 'abs' && /[0-9.]$/.test(cur.text) && !/[eE]/.test(cur.text) && /^[+-]?\d/.test(text.slice(i + 1, i + 3))) {
-			cur.text += c;
+		if (cls === 5 || cls === 6 || cls === 7) {
+			const v = LETTER_VALUE[code];
+			kind = cls === 5 ? 'abs' : cls === 6 ? 'dif' : 'dup';
+			prefix = v < 0 ? `-${-v}` : String(v);
+			from = i + 1;
+			dot = false;
+			exp = false;
 			continue;
 		}
-		let k: number;
-		if ((k = SQZ_POS.indexOf(c)) >= 0 || (k = SQZ_NEG.indexOf(c)) >= 0) {
-			flush();
-			cur = { kind: 'abs', text: (SQZ_POS.includes(c) ? '' : '-') + (SQZ_POS.includes(c) ? k : k + 1) };
-			continue;
-		}
-		if ((k = DIF_POS.indexOf(c)) >= 0 || (k = DIF_NEG.indexOf(c)) >= 0) {
-			flush();
-			cur = { kind: 'dif', text: (DIF_POS.includes(c) ? '' : '-') + (DIF_POS.includes(c) ? k : k + 1) };
-			continue;
-		}
-		if ((k = DUP.indexOf(c)) >= 0) {
-			flush();
-			cur = { kind: 'dup', text: String(k + 1) };
-			continue;
-		}
-		if (c === '?') {
-			flush();
+		if (cls === 8) {
 			out.push({ kind: 'missing', text: '?' });
 			continue;
 		}
-		return `unexpected character "${c}" at column ${i + 1}`;
+		return `unexpected character "${text[i]}" at column ${i + 1}`;
 	}
-	flush();
 	return out;
 }
 
-const NUM = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const same = (a: number, b: number) => Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(a), Math.abs(b));
 
 /**
@@ -157,7 +180,7 @@ export function decodeAsdf(lines: string[], from: number, to: number, opts: Asdf
 		if (typeof tokens === 'string') return fail('not_a_number', `line ${i + 1}: ${tokens} ("${text.slice(0, 40)}")`, i);
 		if (!tokens.length) continue;
 		const first = tokens[0];
-		if (first.kind !== 'abs' || !NUM.test(first.text)) return fail('not_a_number', `line ${i + 1}: a data line must start with its x value ("${text.slice(0, 40)}")`, i);
+		if (first.kind !== 'abs' || Number.isNaN(Number(first.text))) return fail('not_a_number', `line ${i + 1}: a data line must start with its x value ("${text.slice(0, 40)}")`, i);
 		const x = Number(first.text);
 		let checkPending = prevEndedDif;
 		let prev: { kind: 'abs' | 'dif' | 'missing'; v: number } | null = null;
@@ -191,8 +214,8 @@ export function decodeAsdf(lines: string[], from: number, to: number, opts: Asdf
 				endedDif = false;
 				continue;
 			}
-			if (!NUM.test(tok.text)) return fail('not_a_number', `line ${i + 1}: "${tok.text}" is not a number`, i);
 			const v = Number(tok.text);
+			if (Number.isNaN(v)) return fail('not_a_number', `line ${i + 1}: "${tok.text}" is not a number`, i);
 			if (!Number.isFinite(v)) return fail('not_finite', `line ${i + 1}: "${tok.text}" is too large to be a number`, i);
 			if (tok.kind === 'dif') {
 				if (!Number.isFinite(last)) return fail('not_a_number', `line ${i + 1}: a difference (DIF) without a value before it`, i);

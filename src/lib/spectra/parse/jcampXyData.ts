@@ -42,9 +42,9 @@ export function readXyData(lines: string[], start: number, end: number, dataLine
 	if (usesCompression(lines, dataLine + 1, last)) {
 		const data: number[] = [];
 		for (let i = dataLine + 1; i <= last; i++) if (stripComment(lines[i]).trim()) data.push(i);
-		const plain = data.filter((i) => AFFN_LINE.test(stripComment(lines[i])));
-		if (plain.length >= 0.5 * data.length) {
-			for (const i of data) if (!plain.includes(i) && out.issues.length < 20) err('not_a_number', `line ${i + 1}: not a number ("${lines[i].trim().slice(0, 40)}")`, i + 1);
+		const plain = new Set(data.filter((i) => AFFN_LINE.test(stripComment(lines[i]))));
+		if (plain.size >= 0.5 * data.length) {
+			for (const i of data) if (!plain.has(i) && out.issues.length < 20) err('not_a_number', `line ${i + 1}: not a number ("${lines[i].trim().slice(0, 40)}")`, i + 1);
 			return out;
 		}
 	}

@@ -50,7 +50,7 @@ export function validatePoints(p: PointsIn): { value?: PointsOut; issues: ParseI
 		if (!Number.isFinite(x)) err('not_a_number', `${p.what}: x is not a number${at}`, p.lines[i]);
 		else if (x <= 0) err('x_not_positive', `${p.what}: x = ${x}${at} cannot be converted to a positive wavelength`, p.lines[i]);
 		if (!Number.isFinite(y)) err('not_a_number', `${p.what}: y is not a number${at}`, p.lines[i]);
-		else if (isT && y <= -noise) err('negative_transmittance', `${p.what}: negative transmittance ${y}${at}`, p.lines[i]);
+		else if (isT && y <= -noise) err('negative_transmittance', `${p.what}: negative transmittance ${y}${p.yUnit === 'transmittance-percent' ? ' %T' : ' (as a fraction; noise down to −0.002 is read as 0)'}${at}`, p.lines[i]);
 		else if (isT && y < 0) clipped.push(i);
 	}
 	if (n < MIN_POINTS)
