@@ -73,6 +73,7 @@ export function prepareSpectra(bytes: Uint8Array, filename: string, meta: Upload
 		xUnit: meta.xUnit,
 		yUnit: meta.yUnit,
 		columns: meta.columns,
+		layout: meta.layout,
 		concentrationM: meta.concentrationM ?? undefined,
 		pathCm: meta.pathCm ?? undefined
 	});

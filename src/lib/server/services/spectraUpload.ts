@@ -65,6 +65,9 @@ const previewOf = (s: PreparedSpectrum, i: number) => ({
 	edgeNm: s.derived.edgeNm,
 	cutoff50Nm: s.derived.cutoff50Nm,
 	fileMetadata: s.raw.metadata,
+	/** Time series (one spectrum per row): the time in seconds and the row's label as written. */
+	timeS: s.raw.timeS ?? null,
+	blockLabel: s.raw.blockLabel ?? null,
 	...thin(s.norm.x, s.norm.y)
 });
 
@@ -80,12 +83,23 @@ export async function uploadSpectrumFile(locals: App.Locals, file: unknown, meta
 	const f = file as File;
 	const bytes = new Uint8Array(await f.arrayBuffer());
 	const filename = f.name || 'upload';
-	const { spectra, warnings } = prepareSpectra(bytes, filename, meta);
-	if (preview) {
+	// the preview shows how a delimited table was read (layout, columns, units) — also when the file is refused, so the
+	// user can say which quantity a column is and read it again
+	const tableOf = () => {
+		if (!preview) return null;
 		const text = decodeText(bytes.subarray(0, 200_000));
-		const table = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6) : null;
-		return { filename, preview: spectra.map(previewOf), table: table?.ok ? table.value : null, warnings: warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
+		const t = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6, { layout: meta.layout, filename }) : null;
+		return t?.ok ? t.value : null;
+	};
+	let prepared: ReturnType<typeof prepareSpectra>;
+	try {
+		prepared = prepareSpectra(bytes, filename, meta);
+	} catch (e) {
+		if (preview && e instanceof ApiError && e.status !== 413) e.extra.table = tableOf();
+		throw e;
 	}
+	const { spectra, warnings } = prepared;
+	if (preview) return { filename, preview: spectra.map(previewOf), table: tableOf(), warnings: warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
 	try {
 		return await storeSpectra(db(), { groupId, ownerId: locals.user!.id, bytes, filename, meta, spectra, warnings });
 	} catch (e) {
