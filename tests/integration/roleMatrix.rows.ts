@@ -136,5 +136,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'window finder page', method: 'GET', path: '/window', kind: 'page', expect: all(303, 200) },
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
-	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) }
+	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- csv: a wall material from an uploaded n, k table ----
+	{ name: 'add material from n, k, JSON body', method: 'POST', path: '/api/materials/optical-constants', kind: 'api', json: {}, expect: { anonymous: 401, viewer: 403, member: 415, lead: 415, outsider: 415, admin: 415 } }
 ];

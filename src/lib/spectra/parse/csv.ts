@@ -299,6 +299,12 @@ function readRows(plan: DelimitedPlan, options: DelimitedOptions): Result<RawSpe
 	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues: collapseErrors(issues) };
 	if (!spectra.length) return fail('no_spectrum', 'no row to import');
 	const lead: ParseIssue[] = [{ severity: 'warning', code: 'layout_rows', message: `read as ${spectra.length} spectra, one per row (${layout.reason})` }];
+	// one unit assumption for the whole series, not one per row
+	const assumed = warnings.filter((w) => w.code === 'y_unit_assumed');
+	if (assumed.length) {
+		lead.push({ severity: 'warning', code: 'y_unit_assumed', message: `y unit not stated; the ${spectra.length} rows are read as ${spectra[0]?.yUnit ?? 'absorbance'} (${spectra[0]?.kind ?? 'absorption'}) — please confirm` });
+		for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'y_unit_assumed') warnings.splice(i, 1);
+	}
 	if (assumedTime) lead.push({ severity: 'warning', code: 'time_unit_assumed', message: 'the first column names no time unit; row labels read as seconds — please confirm' });
 	return { ok: true, value: spectra, warnings: collapse([...lead, ...warnings, ...issues]) };
 }
