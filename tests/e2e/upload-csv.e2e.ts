@@ -20,7 +20,7 @@ const kinetics = () => {
 const multi = () => {
 	const head = ['Wavelength (nm)', 'Wavenumber (cm-1)', 'A 10 µM', 'A 20 µM', 'A 40 µM', 'A 80 µM', '%T filter', 'Concentration (M)'];
 	const rows = wl.map((nm) => [nm, (1e7 / nm).toFixed(3), ...[1, 2, 4, 8].map((f) => (0.05 * f * band(nm, 450, 35) + 0.003).toFixed(4)), (90 - 80 * band(nm, 320, 15)).toFixed(2), '2.5e-5'].join(','));
-	return { name: `dye-dilution-${run}.csv`, mimeType: 'text/csv', buffer: Buffer.from([head.join(','), ...rows].join('\n')) };
+	return { name: `dye-dilution-${run}.csv`, mimeType: 'text/csv', buffer: Buffer.from([`Sample: invented dye D-7, run ${run}`, head.join(','), ...rows].join('\n')) };
 };
 const nk = () => ({ name: `glass-nk-${run}.csv`, mimeType: 'text/csv', buffer: readFileSync(path.resolve(process.cwd(), '../../shared/external/csv-variety/optical-constants-n-k-not-a-spectrum.csv')) });
 
@@ -59,11 +59,44 @@ test('kinetics per row, column selection, re-read keeps typed metadata, n, k ref
 	await expect(m.getByTestId('preview-spectrum')).toHaveCount(4);
 	await expect(m.locator('input[name=name]')).toHaveValue(`Dilution series typed ${run}`);
 	await expect(m.locator('input[name=solvent]')).toHaveValue('acetonitrile');
+
+	// the n, k table is offered as a wall material instead
+	await n.getByTestId('wall-from-nk').locator('input').first().fill(`Soda-lime sheet e2e ${run}`);
+	await n.getByRole('button', { name: 'Add as a wall material' }).click();
+	await expect(n.getByRole('status')).toContainText(`Added Soda-lime sheet e2e ${run} (146 wavelengths`);
 	await page.screenshot({ path: 'test-results/upload-csv-1366.png', fullPage: true });
 
 	await page.setViewportSize({ width: 390, height: 844 });
 	await page.screenshot({ path: 'test-results/upload-csv-390.png', fullPage: true });
+	await m.locator('fieldset').screenshot({ path: 'test-results/upload-csv-390-columns.png' });
+	await k.locator('fieldset').screenshot({ path: 'test-results/upload-csv-390-rows.png' });
+	await n.screenshot({ path: 'test-results/upload-csv-390-nk.png' });
 	await m.locator('button[type=submit]').click();
 	await expect(m.getByTestId('upload-status')).toHaveText('saved', { timeout: 30_000 });
 	await expect(m.getByText(`Dilution series typed ${run} — A 10 µM`)).toBeVisible();
+});
+
+test('lamp from a measured spectrum and wall from a measured spectrum pick it with the search combobox', async ({ page }) => {
+	await signInAs(page, 'member');
+	await page.setViewportSize({ width: 1366, height: 900 });
+	await page.goto('/lamps/new');
+	await page.locator('select[name=modelType]').selectOption('spectrum');
+	const lamp = page.getByTestId('lamp-spectrum-choice');
+	await lamp.click();
+	await expect(page.getByRole('listbox')).toBeVisible();
+	const first = page.getByRole('listbox').getByRole('option').first();
+	const label = (await first.locator('span').first().textContent())!.trim();
+	await lamp.press('ArrowDown');
+	await lamp.press('ArrowUp');
+	await lamp.press('Enter');
+	await expect(page.getByTestId('lamp-spectrum-choice')).toContainText(label);
+	expect(Number(await page.locator('input[type=hidden][name=spectrumId]').inputValue())).toBeGreaterThan(0);
+	await page.screenshot({ path: 'test-results/upload-csv-lamp-picker.png', fullPage: true });
+	await page.goto('/reference/materials');
+	await page.getByText('Add your own wall from a measured transmission spectrum').click();
+	await page.getByTestId('wall-spectrum-choice').fill('tubing wall');
+	await expect(page.getByRole('listbox').getByRole('option').first()).toContainText('tubing wall');
+	await page.screenshot({ path: 'test-results/upload-csv-wall-picker.png', fullPage: true });
+	await page.getByRole('listbox').getByRole('option').first().click();
+	await expect(page.getByTestId('wall-spectrum-choice')).toContainText('tubing wall');
 });
