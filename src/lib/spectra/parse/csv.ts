@@ -161,6 +161,14 @@ function finish(
 	warnings: ParseIssue[]
 ): RawSpectrum | undefined {
 	const { what, options, pre } = opts;
+	// a number too large for a double ("1e999"), or one that overflows when scaled or converted: physically meaningless
+	for (let i = 0; i < b.x.length; i++) {
+		const bad = b.x[i] === Infinity || b.x[i] === -Infinity ? 'x' : b.y[i] === Infinity || b.y[i] === -Infinity ? 'y' : undefined;
+		if (bad) {
+			issues.push({ severity: 'error', code: 'not_finite_after_conversion', message: `${what}: ${bad} on line ${b.lines[i]} is not a finite number after unit conversion`, line: b.lines[i] || undefined });
+			return undefined;
+		}
+	}
 	let guess = opts.guess;
 	// reflectance and transmittance of unknown scale: percent when any value exceeds 1.5 (common practice)
 	if (guess?.yUnit === 'reflectance' && guess.transmittanceScaleUnknown) {

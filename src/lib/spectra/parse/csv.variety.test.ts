@@ -149,6 +149,10 @@ describe('physically impossible values after unit conversion (HTTP 422, naming t
 		const um = parseDelimited('Wavelength (µm),Abs\n' + grid((i) => `${200 + i},0.${i + 1}`), { xUnit: 'um' });
 		expect(!um.ok && um.issues[0].code).toBe('x_out_of_range');
 	});
+	it('a value that overflows a double (1e999) is refused as not finite, naming the line', () => {
+		const r = parseDelimited('Wavelength (nm),W m-2 nm-1\n400,1\n401,2\n402,1e999\n403,2\n404,1\n405,2\n');
+		expect(!r.ok && r.issues[0]).toMatchObject({ code: 'not_finite_after_conversion', line: 4 });
+	});
 	it('ε above 10⁶ M⁻¹ cm⁻¹, and an A/(c·l) that overflows, are refused naming the column', () => {
 		const e = parseDelimited('nm,epsilon (M-1 cm-1)\n' + grid((i) => `${400 + i},${2e6 + i}`));
 		expect(!e.ok && e.issues[0].code).toBe('implausible_epsilon');
