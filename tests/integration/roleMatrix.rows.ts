@@ -186,5 +186,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'quantum yield, empty body', method: 'POST', path: '/api/quantum-yield', kind: 'api', json: {}, expect: all(401, 400) },
 	{ name: 'quantum-yield page', method: 'GET', path: '/library/quantum-yield', kind: 'page', expect: all(303, 200) },
 	// ---- jcamp: several spectra as one JCAMP-DX LINK file ----
-	{ name: 'spectra LINK export', method: 'GET', path: '/api/spectra/export?ids=1&format=jcamp', kind: 'api', expect: demoGroupApi(200) }
+	{ name: 'spectra LINK export', method: 'GET', path: '/api/spectra/export?ids=1&format=jcamp', kind: 'api', expect: demoGroupApi(200) },
+	// ---- csv: a wall material from an uploaded n, k table ----
+	{ name: 'add material from n, k, JSON body', method: 'POST', path: '/api/materials/optical-constants', kind: 'api', json: {}, expect: { anonymous: 401, viewer: 403, member: 415, lead: 415, outsider: 415, admin: 415 } }
 ];

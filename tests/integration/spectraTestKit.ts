@@ -10,7 +10,7 @@ import { uploadSpectrumFile } from '../../src/lib/server/services/spectraUpload'
 import type { storeSpectra } from '../../src/lib/server/services/spectraStore';
 import type { SessionUser } from '../../src/lib/server/auth/types';
 
-export const external = (rel: string) => path.resolve(process.cwd(), '../shared/external', rel);
+export { externalPath as external } from '../../src/lib/spectra/__fixtures__/external';
 export const fixture = (rel: string) => path.resolve(process.cwd(), 'fixtures/library', rel);
 
 const people = ['lead', 'member', 'member2', 'viewer', 'outsider'] as const;

@@ -6,10 +6,10 @@
 import { z } from 'zod';
 
 export const PARTS = ['substrate', 'photocatalyst', 'product', 'additive', 'solvent', 'wall', 'filter', 'lamp'] as const;
-export const KINDS = ['absorption', 'transmission', 'emission'] as const;
+export const KINDS = ['absorption', 'transmission', 'emission', 'reflectance'] as const;
 export const VISIBILITIES = ['private', 'group', 'public'] as const;
 export const X_UNITS = ['nm', 'cm-1', 'um'] as const;
-export const Y_UNITS = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'relative', 'W/nm', 'W/m2/nm', 'counts'] as const;
+export const Y_UNITS = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'reflectance', 'reflectance-percent', 'relative', 'W/nm', 'W/m2/nm', 'counts'] as const;
 export const SORTS = ['name', 'part', 'lambdaMaxNm', 'createdAt', 'updatedAt', 'solvent', 'owner'] as const;
 
 export type Part = (typeof PARTS)[number];
@@ -68,6 +68,8 @@ export const uploadMetadataSchema = spectrumFieldsSchema.extend({
 	columns: z.array(z.number().int().min(0)).min(1).optional(),
 	xUnit: z.enum(X_UNITS).optional(),
 	yUnit: z.enum(Y_UNITS).optional(),
+	/** Delimited text: one spectrum per column or per row (default: detected from the table). */
+	layout: z.enum(['columns', 'rows']).optional(),
 	/** Group to store in (id or slug); default: the caller's first group where they are member+. */
 	group: z.union([z.number().int().positive(), z.string().min(1)]).optional(),
 	/** Per-spectrum names for multi-spectrum files, by position in the parsed result. */

@@ -63,7 +63,8 @@ export async function insertWallMaterial(row: {
 	status: string;
 	notes: string | null;
 	groupId: number;
-	spectrumId: number;
+	/** The Library spectrum the material was made from; null for one made from an uploaded n, k table. */
+	spectrumId: number | null;
 	createdBy: string;
 }): Promise<number> {
 	const [id] = await db()('wall_materials').insert({

@@ -24,7 +24,7 @@ export interface PreparedSpectrum {
 /** Codes of data that parse but cannot be physical (HTTP 422). */
 const PHYSICAL = new Set(['negative_transmittance', 'x_not_positive', 'duplicate_x_conflict', 'duplicate_x', 'invalid_concentration', 'invalid_path', 'transmittance_above_one', 'negative_k',
 	// delimited text (csvPhysical.ts): values that cannot be what the file or the caller says they are
-	'x_out_of_range', 'implausible_absorbance', 'implausible_transmittance', 'implausible_reflectance', 'implausible_epsilon']);
+	'x_out_of_range', 'not_finite_after_conversion', 'implausible_absorbance', 'implausible_transmittance', 'implausible_reflectance', 'implausible_epsilon']);
 /** Files that parse as tables but are not spectra (HTTP 415 with the reason). */
 const NOT_A_SPECTRUM = new Set(['unsupported_format', 'not_optical_table', 'optical_constants_table']);
 /** Codes that name a metadata field rather than a line. */
@@ -76,6 +76,7 @@ export function prepareSpectra(bytes: Uint8Array, filename: string, meta: Upload
 		xUnit: meta.xUnit,
 		yUnit: meta.yUnit,
 		columns: meta.columns,
+		layout: meta.layout,
 		concentrationM: meta.concentrationM ?? undefined,
 		pathCm: meta.pathCm ?? undefined,
 		limits: parseLimitsFromEnv(process.env)

@@ -67,6 +67,9 @@ const previewOf = (s: PreparedSpectrum, i: number) => ({
 	edgeNm: s.derived.edgeNm,
 	cutoff50Nm: s.derived.cutoff50Nm,
 	fileMetadata: s.raw.metadata,
+	/** Time series (one spectrum per row): the time in seconds and the row's label as written. */
+	timeS: s.raw.timeS ?? null,
+	blockLabel: s.raw.blockLabel ?? null,
 	...thin(s.norm.x, s.norm.y)
 });
 
@@ -83,13 +86,24 @@ export async function uploadSpectrumFile(locals: App.Locals, file: unknown, meta
 	const bytes = new Uint8Array(await f.arrayBuffer());
 	const filename = f.name || 'upload';
 	if (bytes.byteLength > uploadLimitBytes()) throw new ApiError(413, 'too_large', `${filename}: ${(bytes.byteLength / 1048576).toFixed(1)} MB is above the ${uploadLimitBytes() / 1048576} MB limit for one file`, { field: 'file' });
-	// Parsed in a worker thread with a memory and time limit: no file can block or stop the server.
-	const { spectra, warnings } = await prepareSpectraInWorker(bytes, filename, meta);
-	if (preview) {
+	// the preview shows how a delimited table was read (layout, columns, units) — also when the file is refused, so the
+	// user can say which quantity a column is and read it again
+	const tableOf = () => {
+		if (!preview) return null;
 		const text = decodeText(bytes.subarray(0, 200_000));
-		const table = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6) : null;
-		return { filename, preview: spectra.map(previewOf), table: table?.ok ? table.value : null, warnings: warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
+		const t = text && !/^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096)) ? inspectDelimited(text, 6, { layout: meta.layout, filename }) : null;
+		return t?.ok ? t.value : null;
+	};
+	let prepared: Awaited<ReturnType<typeof prepareSpectraInWorker>>;
+	try {
+		// Parsed in a separate parser process with a memory and time limit: no file can block or stop the server.
+		prepared = await prepareSpectraInWorker(bytes, filename, meta);
+	} catch (e) {
+		if (preview && e instanceof ApiError && e.status !== 413) e.extra.table = tableOf();
+		throw e;
 	}
+	const { spectra, warnings } = prepared;
+	if (preview) return { filename, preview: spectra.map(previewOf), table: tableOf(), warnings: warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
 	try {
 		return await storeSpectra(db(), { groupId, ownerId: locals.user!.id, bytes, filename, meta, spectra, warnings });
 	} catch (e) {

@@ -161,6 +161,14 @@ function finish(
 	warnings: ParseIssue[]
 ): RawSpectrum | undefined {
 	const { what, options, pre } = opts;
+	// a number too large for a double ("1e999"), or one that overflows when scaled or converted: physically meaningless
+	for (let i = 0; i < b.x.length; i++) {
+		const bad = b.x[i] === Infinity || b.x[i] === -Infinity ? 'x' : b.y[i] === Infinity || b.y[i] === -Infinity ? 'y' : undefined;
+		if (bad) {
+			issues.push({ severity: 'error', code: 'not_finite_after_conversion', message: `${what}: ${bad} on line ${b.lines[i]} is not a finite number after unit conversion`, line: b.lines[i] || undefined });
+			return undefined;
+		}
+	}
 	let guess = opts.guess;
 	// reflectance and transmittance of unknown scale: percent when any value exceeds 1.5 (common practice)
 	if (guess?.yUnit === 'reflectance' && guess.transmittanceScaleUnknown) {
@@ -299,6 +307,12 @@ function readRows(plan: DelimitedPlan, options: DelimitedOptions): Result<RawSpe
 	if (issues.some((i) => i.severity === 'error')) return { ok: false, issues: collapseErrors(issues) };
 	if (!spectra.length) return fail('no_spectrum', 'no row to import');
 	const lead: ParseIssue[] = [{ severity: 'warning', code: 'layout_rows', message: `read as ${spectra.length} spectra, one per row (${layout.reason})` }];
+	// one unit assumption for the whole series, not one per row
+	const assumed = warnings.filter((w) => w.code === 'y_unit_assumed');
+	if (assumed.length) {
+		lead.push({ severity: 'warning', code: 'y_unit_assumed', message: `y unit not stated; the ${spectra.length} rows are read as ${spectra[0]?.yUnit ?? 'absorbance'} (${spectra[0]?.kind ?? 'absorption'}) — please confirm` });
+		for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'y_unit_assumed') warnings.splice(i, 1);
+	}
 	if (assumedTime) lead.push({ severity: 'warning', code: 'time_unit_assumed', message: 'the first column names no time unit; row labels read as seconds — please confirm' });
 	return { ok: true, value: spectra, warnings: collapse([...lead, ...warnings, ...issues]) };
 }

@@ -149,6 +149,10 @@ describe('physically impossible values after unit conversion (HTTP 422, naming t
 		const um = parseDelimited('Wavelength (µm),Abs\n' + grid((i) => `${200 + i},0.${i + 1}`), { xUnit: 'um' });
 		expect(!um.ok && um.issues[0].code).toBe('x_out_of_range');
 	});
+	it('a value that overflows a double (1e999) is refused as not finite, naming the line', () => {
+		const r = parseDelimited('Wavelength (nm),W m-2 nm-1\n400,1\n401,2\n402,1e999\n403,2\n404,1\n405,2\n');
+		expect(!r.ok && r.issues[0]).toMatchObject({ code: 'not_finite_after_conversion', line: 4 });
+	});
 	it('ε above 10⁶ M⁻¹ cm⁻¹, and an A/(c·l) that overflows, are refused naming the column', () => {
 		const e = parseDelimited('nm,epsilon (M-1 cm-1)\n' + grid((i) => `${400 + i},${2e6 + i}`));
 		expect(!e.ok && e.issues[0].code).toBe('implausible_epsilon');
@@ -212,5 +216,23 @@ describe('file name in messages appears once (the API envelope adds it)', () => 
 	it('an empty file says so without the name', () => {
 		const r = parseSpectrumFile(new Uint8Array(), path.basename('x.csv'));
 		expect(!r.ok && r.issues[0].message).toBe('the file is empty');
+	});
+});
+
+describe('the n, k table as a wall material (T = (1 − R)²·exp(−4πkd/λ), Born & Wolf; walls.ts)', () => {
+	it('csv-variety/optical-constants-n-k-not-a-spectrum.csv: 146 wavelengths 250–1700 nm; 1 mm at 250 nm transmits 66.6 %', async () => {
+		const { readOpticalConstantsTable } = await import('./csvOpticalConstants');
+		const { wallTransmission } = await import('../../irradiation/walls');
+		const r = readOpticalConstantsTable(new TextDecoder().decode(readExternal('csv-variety/optical-constants-n-k-not-a-spectrum.csv')));
+		if (!r.ok) throw new Error(JSON.stringify(r.issues));
+		expect(r.value.wavelengthNm.length).toBe(146);
+		expect([r.value.wavelengthNm[0], r.value.wavelengthNm[145]]).toEqual([250, 1700]);
+		// file line 2: 0.25 µm, n 1.589, k 5.97e-6 → R = (0.589/2.589)² = 0.05176; 4πkd/λ = 4π·5.97e-6·1e6 nm/250 nm = 0.3001;
+		// with the file's n at 250 nm: T = (1 − 0.05176)²·e^−0.3001 = 0.6661 (hand calculation from the MANIFEST formula)
+		const model = { model: 'k' as const, kTable: { wavelengthNm: r.value.wavelengthNm, k: r.value.k }, n: 1.589 };
+		expect(wallTransmission(model, 1, 250)).toBeCloseTo(0.6661, 3);
+		// n for the reflection loss: the table's n at 589.3 nm lies between its 580 and 590 nm rows
+		expect(r.value.nForFresnel).toBeGreaterThan(1.5);
+		expect(r.value.nForFresnel).toBeLessThan(1.53);
 	});
 });

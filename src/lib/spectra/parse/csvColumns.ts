@@ -228,13 +228,16 @@ function flatNote(v: Float64Array, decimalComma: boolean): string | undefined {
 	}
 	if (first === undefined || count < 2) return undefined;
 	if (first === 0) return 'all values are 0 (an empty or reference channel), not a spectrum';
-	return `the same value ${decimalComma ? String(first).replace('.', ',') : first} on every line (a parameter such as a concentration or path length), not a spectrum`;
+	const shown = Math.abs(first) < 1e-3 ? first.toExponential() : String(first);
+	return `the same value ${decimalComma ? shown.replace('.', ',') : shown} on every line (a parameter such as a concentration or path length), not a spectrum`;
 }
 
 /** Consensus y unit of the columns whose headers state one (undefined when none or when they disagree). */
 export function columnConsensus(cols: ColumnGuess[]): HeaderYUnit | undefined {
-	const stated = cols.filter((c) => c.role === 'y' && c.name && yUnitOfHeader(c.name) && !yUnitOfHeader(c.name)!.notSpectrum).map((c) => yUnitOfHeader(c.name)!);
-	if (!stated.length) return undefined;
+	const ys = cols.filter((c) => c.role === 'y');
+	const stated = ys.filter((c) => c.name && yUnitOfHeader(c.name) && !yUnitOfHeader(c.name)!.notSpectrum).map((c) => yUnitOfHeader(c.name)!);
+	// at least half of the y columns state one unit and none states another (one %T column among four "A …" ones says nothing about them)
+	if (!stated.length || stated.length * 2 < ys.length) return undefined;
 	return stated.every((g) => g.yUnit === stated[0].yUnit && g.scale === stated[0].scale) ? stated[0] : undefined;
 }
 

@@ -145,6 +145,8 @@ export function yUnitOfHeader(label: string | undefined): (HeaderYUnit & { refle
 	if (r) return { yUnit: r.percent ? 'reflectance-percent' : 'reflectance', kind: 'reflectance', scale: 1, reflectance: r, transmittanceScaleUnknown: r.percent === undefined };
 	const w = radiometricUnit(label);
 	if (w) return w;
+	// "A", "A 10 µM", "A (run 2)", "A_1": absorbance (capital A as its own word)
+	if (/^A(?=$|[\s_([])/.test(label.trim())) return { yUnit: 'absorbance', kind: 'absorption', scale: 1 };
 	// a bare "T" / "T (%)" column: transmittance (fraction unless it says percent; large values decide as for %T)
 	const t = /^\s*t\s*(?:[([]\s*(%|fraction)?\s*[)\]])?\s*$/i.exec(label);
 	if (t) return t[1] === '%' ? { yUnit: 'transmittance-percent', kind: 'transmission', scale: 1 } : { yUnit: 'transmittance', kind: 'transmission', scale: 1, transmittanceScaleUnknown: t[1] !== 'fraction' };

@@ -35,7 +35,7 @@ const list = (v: FormDataEntryValue | null) => String(v ?? '').split(/[;,\n]/).m
 export function metadataFromForm(form: HTMLFormElement): { value: Record<string, unknown> } | { error: string } {
 	const fd = new FormData(form);
 	const out: Record<string, unknown> = {};
-	for (const k of ['name', 'cas', 'part', 'solvent', 'instrument', 'notes', 'visibility', 'kind', 'xUnit', 'yUnit']) {
+	for (const k of ['name', 'cas', 'part', 'solvent', 'instrument', 'notes', 'visibility', 'kind', 'xUnit', 'yUnit', 'layout']) {
 		const v = String(fd.get(k) ?? '').trim();
 		if (v) out[k] = v;
 	}
