@@ -136,5 +136,7 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'window finder page', method: 'GET', path: '/window', kind: 'page', expect: all(303, 200) },
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
-	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) }
+	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- finder: the Window finder's save action (role first: viewers 403; others fail validation, nothing saved) ----
+	{ name: 'window finder save form, no inputs', method: 'POST', path: '/window?/save', kind: 'action', form: { title: 'x', inputs: '{}' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 400, admin: 400 } }
 ];
