@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cautionsForLamp, cautionsForSpectrum, mergeCautions, SAFETY_DEFERRAL_TEXT, spectralBandShares } from './cautions';
+import { cautionsForLamp, cautionsForSpectrum, cautionsPerLamp, mergeCautions, SAFETY_DEFERRAL_TEXT, spectralBandShares } from './cautions';
 import { CAUTION_GRID, lampSpectrum } from './lamps';
 
 const codes = (list: { code: string }[]) => list.map((c) => c.code);
@@ -75,5 +75,20 @@ describe('cautions', () => {
 		expect(codes(merged).filter((c) => c === 'consult-safety-officer')).toHaveLength(1);
 		endsWithDeferral(merged);
 		expect(codes(merged)).toEqual(expect.arrayContaining(['uv-c', 'uv-a', 'ozone', 'blue-light']));
+	});
+});
+
+describe('cautions of several lamps', () => {
+	it('each caution names its lamp; nothing is merged across lamps; the deferral comes once, last', () => {
+		const uv = cautionsForLamp({ type: 'mercury-low-pressure' }, 10);
+		const blue = cautionsForLamp({ type: 'led', peakNm: 405, fwhmNm: 14 }, 1.6); // 1.6 W 405 nm strip: blue-light caution (≥ 1 W in 400–500 nm)
+		const all = cautionsPerLamp([{ lampId: 1, lampName: 'UV-C pencil', cautions: uv }, { lampId: 2, lampName: 'Violet strip', cautions: blue }]);
+		expect(all.at(-1)?.code).toBe('consult-safety-officer');
+		expect(all.filter((c) => c.code === 'consult-safety-officer')).toHaveLength(1);
+		const b = all.find((c) => c.code === 'blue-light')!;
+		expect(b.lampName).toBe('Violet strip');
+		expect(b.title).toMatch(/^Violet strip: /);
+		expect(all.find((c) => c.code === 'uv-c')?.lampId).toBe(1);
+		for (const c of all.slice(0, -1)) expect(c.lampName).toBeTruthy();
 	});
 });

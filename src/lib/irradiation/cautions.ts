@@ -133,6 +133,21 @@ export function mergeCautions(...lists: Caution[][]): Caution[] {
 	return finish([...byKey.values()]);
 }
 
+/** A caution of one named lamp. */
+export interface LampCaution extends Caution { lampId?: string | number; lampName?: string }
+
+/**
+ * Cautions of several lamps, each kept with the lamp it belongs to (lampId, lampName, and the lamp's name leading the
+ * title) — never merged across lamps; severest first, the deferral to local rules once at the end.
+ */
+export function cautionsPerLamp(entries: { lampId: string | number; lampName: string; cautions: Caution[] }[]): LampCaution[] {
+	const out: LampCaution[] = [];
+	for (const e of entries) {
+		for (const c of e.cautions) if (c.code !== DEFERRAL.code) out.push({ ...c, lampId: e.lampId, lampName: e.lampName, title: `${e.lampName}: ${c.title}` });
+	}
+	return [...out.sort((a, b) => RANK[a.severity] - RANK[b.severity]), DEFERRAL];
+}
+
 /** Cautions for a lamp model at `powerW`, computed on CAUTION_GRID (150–1100 nm, keeps VUV lines). */
 export function cautionsForLamp(model: LampModel, powerW: number, options: Omit<CautionOptions, 'lampType'> = {}): Caution[] {
 	return cautionsForSpectrum(lampSpectrum(model, powerW, CAUTION_GRID), { ...options, lampType: model.type });

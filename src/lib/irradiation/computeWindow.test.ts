@@ -54,7 +54,9 @@ describe('computeWindow', () => {
 		if (!r.ok) throw new Error('unexpected issues');
 		expect(r.value.windows).toEqual([]);
 		expect(r.value.lamps[0].timeTo90PctS).toBeNull();
-		expect(r.value.explanation[0]).toMatch(/No usable window.*the wall blocks 100 %/);
+		// the headline comes first (the wall at the band maximum), then the window sentence
+		expect(r.value.explanation[0]).toMatch(/^At its band maximum \(250 nm\) the wall passes 0 %/);
+		expect(r.value.explanation[1]).toMatch(/No usable window.*the wall blocks 100 %/);
 	});
 	it('names the bad fields; a negative concentration is physically invalid', () => {
 		const r = computeWindow({ ...input, substrate: { ...input.substrate, concentrationM: -1 }, wallTransmission: [1, 2] });

@@ -56,6 +56,8 @@ export interface AbsorbedFluxInput {
 	speciesAbsorbance: NumberArray[];
 	/** Solvent absorbance over the path. */
 	solventAbsorbance: NumberArray;
+	/** Vessel geometry g(A) = F(A)/A (vessels.ts); default the flat layer (1 − 10^(−A))/A. */
+	fractionPerAbsorbance?: (absorbance: number) => number;
 }
 
 export interface AbsorbedFlux {
@@ -75,6 +77,8 @@ export interface AbsorbedFlux {
  */
 export function absorbedPhotonFlux(input: AbsorbedFluxInput): AbsorbedFlux {
 	const { stepNm, photonFluxPerNm: q, wallTransmission: t, speciesAbsorbance: sp, solventAbsorbance: solv } = input;
+	const gOf = input.fractionPerAbsorbance ?? absorbedFractionPerAbsorbance;
+	const slab = gOf === absorbedFractionPerAbsorbance;
 	const n = q.length;
 	const m = sp.length;
 	const perSpecies = new Float64Array(m);
@@ -91,12 +95,13 @@ export function absorbedPhotonFlux(input: AbsorbedFluxInput): AbsorbedFlux {
 		const through = inc * t[i];
 		let aTot = solv[i];
 		for (let j = 0; j < m; j++) aTot += sp[j][i];
-		const g = absorbedFractionPerAbsorbance(aTot);
+		const g = gOf(aTot);
 		incident += inc;
 		wall += inc - through;
 		solvent += through * solv[i] * g;
 		for (let j = 0; j < m; j++) perSpecies[j] += through * sp[j][i] * g;
-		transmitted += through * Math.exp(-LN10 * aTot);
+		// what the liquid does not absorb leaves it (slab: 10^(−A_tot); other shapes: 1 − F(A_tot))
+		transmitted += slab ? through * Math.exp(-LN10 * aTot) : through * Math.max(0, 1 - aTot * g);
 	}
 	let speciesTotal = 0;
 	for (let j = 0; j < m; j++) speciesTotal += perSpecies[j];

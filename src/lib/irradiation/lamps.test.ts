@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CAUTION_GRID, lampSpectrum, ohnoShape, OHNO_FWHM_PER_DELTA, peakWavelengthNm, photonFluxSpectrum, totalPhotonFluxEinsteinPerS, validateLampModel, type LampModel, type LampSpectrum } from './lamps';
+import { CAUTION_GRID, lampPeakNm, lampSpectrum, ohnoShape, OHNO_FWHM_PER_DELTA, peakWavelengthNm, photonFluxSpectrum, totalPhotonFluxEinsteinPerS, validateLampModel, type LampModel, type LampSpectrum } from './lamps';
 import { trapezoidArea } from './lampModels/grid';
 import { MERCURY_LINES } from './mercuryLines';
 
@@ -47,7 +47,9 @@ describe('mercury line list', () => {
 		// Calvert & Pitts 1966 table (from memory): 365–366 = 100 is the largest UV band.
 		const mp = lampSpectrum({ type: 'mercury-medium-pressure' }, 450);
 		expect(powerBetween(mp, 360, 370)).toBeGreaterThan(powerBetween(mp, 305, 320));
-		expect(area(mp)).toBeCloseTo(450, 6);
+		// the 1128.7 and 1367.3 nm groups (5.9 W of 175.7 W in the Calvert & Pitts table, summed by hand) lie beyond the 1100 nm grid
+		expect(mp.outsideGridFraction).toBeCloseTo(5.9 / 175.7, 3);
+		expect(area(mp)).toBeCloseTo(450 * (1 - 5.9 / 175.7), 2);
 	});
 });
 
@@ -97,7 +99,11 @@ describe('other models', () => {
 			{ type: 'excimer', emitter: 'XeCl' }, { type: 'excimer', emitter: 'Xe2' }, { type: 'laser', lineNm: 532, widthNm: 0.01 }, { type: 'xenon' },
 			{ type: 'phosphor', peakNm: 350, fwhmNm: 40 }, { type: 'measured', wavelengthNm: [340, 350, 360], power: [0, 5, 0] }
 		];
-		for (const m of models) expect(area(lampSpectrum(m, 3, grid)), m.type).toBeCloseTo(3, 6);
+		// powerW is the model's whole output: the grid holds powerW·(1 − outsideGridFraction) (lamps.ts convention)
+		for (const m of models) {
+			const s = lampSpectrum(m, 3, grid);
+			expect(area(s), m.type).toBeCloseTo(3 * (1 - s.outsideGridFraction), 6);
+		}
 		expect(peakWavelengthNm(lampSpectrum({ type: 'excimer', emitter: 'XeCl' }, 1))).toBe(308);
 		expect(peakWavelengthNm(lampSpectrum({ type: 'laser', lineNm: 532 }, 1))).toBe(532);
 	});
@@ -117,5 +123,36 @@ describe('other models', () => {
 		if (!r.ok) expect(r.issues[0].message).toMatch(/^emitter:/);
 		expect(validateLampModel({ type: 'led', peakNm: 450, fwhmNm: 20 }).ok).toBe(true);
 		expect(validateLampModel(null).ok).toBe(false);
+	});
+});
+
+describe('line sources: peaks, complete tables and the 185 nm convention', () => {
+	it('peakNm is the strongest line at its own NIST air wavelength, not a grid point', () => {
+		// NIST ASD / Sansonetti & Martin 2005 (REFERENCE §3.1): Hg I 253.652 nm (air); 365.015 nm strongest of the 365/366 group
+		expect(lampPeakNm({ type: 'mercury-low-pressure' }, lampSpectrum({ type: 'mercury-low-pressure' }, 1))).toBe(253.652);
+		// Calvert & Pitts 1966 (REFERENCE §3.2, from memory): 365/366 nm = 100 is the strongest group (546.1 nm = 96)
+		expect(lampPeakNm({ type: 'mercury-medium-pressure' }, lampSpectrum({ type: 'mercury-medium-pressure' }, 1))).toBe(365.015);
+		expect(lampPeakNm({ type: 'laser', lineNm: 354.7 }, lampSpectrum({ type: 'laser', lineNm: 354.7 }, 1))).toBe(354.7);
+	});
+
+	it('the medium-pressure model keeps every group of its table: 232–275 nm and 1014 nm included', () => {
+		const mp = lampSpectrum({ type: 'mercury-medium-pressure' }, 175.7);
+		// watts per group from the table (REFERENCE §3.2 ratios × 25.6 W): 232 + 236 + 238 + 240 = 7.3 W; 1014 nm 10.5 W
+		expect(powerBetween(mp, 229, 243)).toBeCloseTo(7.3, 1);
+		expect(powerBetween(mp, 1005, 1025)).toBeCloseTo(10.5, 1);
+		const mid = powerBetween(mp, 268.5, 277); // 270.0 (1.0 W) + 275.3 (0.7 W), less the Gaussian tails beyond the limits
+		expect(mid).toBeGreaterThan(1.5);
+		expect(mid).toBeLessThan(1.8);
+	});
+
+	it('the 185 nm line: included in powerW by default, on top of it with powerWithout185nm; never handed to other lines', () => {
+		const incl = lampSpectrum({ type: 'mercury-low-pressure' }, 10, CAUTION_GRID);
+		const excl = lampSpectrum({ type: 'mercury-low-pressure', powerWithout185nm: true }, 10, CAUTION_GRID);
+		expect(area(incl)).toBeCloseTo(10, 6);
+		expect(powerBetween(excl, 200, 1100)).toBeCloseTo(10, 4);
+		const planner = lampSpectrum({ type: 'mercury-low-pressure' }, 10);
+		// 9 of 118.7 relative units at 184.95 nm (model table): the planner grid from 190 nm holds the rest only
+		expect(planner.outsideGridFraction).toBeCloseTo(9 / 118.7, 3);
+		expect(area(planner)).toBeCloseTo(10 * (1 - 9 / 118.7), 3);
 	});
 });

@@ -8,7 +8,7 @@ import { HCNA_J_NM_PER_MOL } from './constants';
 import { blackbodyShape, measuredShape, phosphorShape, xenonShape } from './lampModels/broadband';
 import { gridWavelengths, normaliseToPower, trapezoidArea } from './lampModels/grid';
 import { ledShape } from './lampModels/led';
-import { excimerShape, laserShape, mercuryShape } from './lampModels/lineSources';
+import { excimerShape, laserShape, lineSourcePeakNm, mercuryShape } from './lampModels/lineSources';
 import { DEFAULT_LAMP_GRID, type LampModel, type LampSpectrum, type ShapeOnGrid, type SpectralGrid } from './lampModels/types';
 import { gridIssues, lampModelIssues } from './lampModels/validate';
 
@@ -32,9 +32,9 @@ function shapeOf(model: LampModel, grid: SpectralGrid): ShapeOnGrid {
 }
 
 /**
- * Emission spectrum of `model` carrying `powerW` watts of optical power (∫P dλ = powerW, trapezoid) on
- * `grid` (default 190–1100 nm, 0.5 nm). Power of the model outside the grid is dropped before
- * normalising and reported as `outsideGridFraction` — use CAUTION_GRID (from 150 nm) for safety checks.
+ * Emission spectrum of `model` carrying `powerW` watts of optical power in all (on and off `grid`) on `grid`
+ * (default 190–1100 nm, 0.5 nm): ∫P dλ on the grid = powerW·(1 − outsideGridFraction). Use CAUTION_GRID (from 150 nm)
+ * for safety checks.
  * @throws RangeError "<field>: <message>" for invalid parameters, power or grid.
  */
 export function lampSpectrum(model: LampModel, powerW: number, grid: SpectralGrid = DEFAULT_LAMP_GRID): LampSpectrum {
@@ -58,6 +58,22 @@ export function totalPhotonFluxEinsteinPerS(spectrum: Pick<LampSpectrum, 'wavele
 	const x = spectrum.wavelengthNm;
 	if (x.length < 2) return 0;
 	return trapezoidArea(photonFluxSpectrum(spectrum), x[1] - x[0]);
+}
+
+/**
+ * The lamp's peak wavelength (nm): for line sources (mercury, excimer, laser) the strongest line at its own wavelength
+ * (253.652 nm for low-pressure Hg, not the grid point); for a measured spectrum the maximum of its own points; else the
+ * grid point of largest spectral power.
+ */
+export function lampPeakNm(model: LampModel, spectrum: Pick<LampSpectrum, 'wavelengthNm' | 'powerWPerNm'>): number {
+	if (model.type === 'mercury-low-pressure' || model.type === 'mercury-medium-pressure' || model.type === 'excimer' || model.type === 'laser') return lineSourcePeakNm(model);
+	if (model.type === 'measured') {
+		let best = 0;
+		for (let i = 1; i < model.power.length; i++) if (model.power[i] > model.power[best]) best = i;
+		return model.wavelengthNm[best];
+	}
+	if (model.type === 'led') return model.peakNm;
+	return peakWavelengthNm(spectrum);
 }
 
 /** Wavelength (nm) of the largest spectral power (grid point; first one on ties). */

@@ -28,6 +28,8 @@ export interface RankInput {
 	lamps: RankLamp[];
 	walls: RankWall[];
 	solvents: RankSolvent[];
+	/** Vessel geometry g(A) = F(A)/A (vessels.ts); default the flat layer (1 − 10^(−A))/A. */
+	fractionPerAbsorbance?: (absorbance: number) => number;
 	/** Leave out combinations that are not allowed (e.g. a solvent that attacks a polymer wall). Default: all allowed. */
 	isAllowed?: (lampIndex: number, wallIndex: number, solventIndex: number) => boolean;
 }
@@ -102,6 +104,7 @@ export function rankCombinations(input: RankInput, options: RankOptions = {}): R
 	// [solvLo[s], solvHi[s]] is that range, and outside it the solvent-free f is used. Only the union of
 	// the lamps' supports [uLo, uHi] is ever read.
 	const tolSolv = options.negligibleSolventAbsorbance ?? 1e-12;
+	const gOf = input.fractionPerAbsorbance ?? absorbedFractionPerAbsorbance;
 	const f = scratch(0, 2 * (S + 1) * n);
 	const solvLo = new Int32Array(S), solvHi = new Int32Array(S);
 	for (let s = S; s >= 0; s--) {
@@ -117,7 +120,7 @@ export function rankCombinations(input: RankInput, options: RankOptions = {}): R
 		for (let i = a; i <= b; i++) {
 			const sp = aO ? aS[i] + aO[i] : aS[i];
 			const aTot = solv ? sp + solv[i] * pathCm : sp;
-			const g = absorbedFractionPerAbsorbance(aTot);
+			const g = gOf(aTot);
 			f[base + 2 * i] = aS[i] * g;
 			f[base + 2 * i + 1] = sp * g;
 		}
@@ -314,7 +317,7 @@ export interface RankedCombination {
 }
 
 /** The best `limit` combinations (default 10) as objects with display sentences; names come from the caller. */
-export function rankedEntries(input: RankInput, ranking: Ranking, limit = 10): RankedCombination[] {
+export function rankedEntries(input: RankInput, ranking: Ranking, limit = 10, absorberWord = 'substrate'): RankedCombination[] {
 	const { wallCount: W, solventCount: S } = ranking;
 	const out: RankedCombination[] = [];
 	const m = Math.min(limit, ranking.order.length);
@@ -337,7 +340,7 @@ export function rankedEntries(input: RankInput, ranking: Ranking, limit = 10): R
 			absorbedPhotonFluxEinsteinPerS: subs,
 			selectivity: spec > 0 ? subs / spec : 0,
 			fractionOfLampPhotonsToSubstrate: fraction,
-			sentence: `the ${nameInSentence(lamp.name)} through ${wall.name}${inSolvent}: ${Math.round(fraction * 100)} % of its photons reach the substrate`
+			sentence: `the ${nameInSentence(lamp.name)} through ${wall.name}${inSolvent}: ${Math.round(fraction * 100)} % of its photons reach the ${absorberWord}`
 		});
 	}
 	return out;

@@ -28,6 +28,8 @@ export interface KineticsInput {
 	quantumYield: number;
 	/** Substrate amount, mol; default c₀·V. */
 	amountMol?: number;
+	/** Vessel geometry g(A) = F(A)/A (vessels.ts); default the flat layer (1 − 10^(−A))/A. */
+	fractionPerAbsorbance?: (absorbance: number) => number;
 }
 
 /** Everything that does not change with conversion, packed on the points that matter. */
@@ -62,12 +64,13 @@ export function prepareKinetics(input: KineticsInput): PreparedKinetics {
 		aFix[k] = fix ? fix[i] : 0;
 		k++;
 	}
+	const g = input.fractionPerAbsorbance ?? absorbedFractionPerAbsorbance;
 	const substrateAbsorbedFlux = (x: number): number => {
 		const s = 1 - x;
 		let sum = 0;
 		for (let k = 0; k < m; k++) {
 			const a = aS0[k] * s;
-			sum += pw[k] * a * absorbedFractionPerAbsorbance(a + aP1[k] * x + aFix[k]);
+			sum += pw[k] * a * g(a + aP1[k] * x + aFix[k]);
 		}
 		return sum;
 	};

@@ -18,7 +18,8 @@ export const lampModelSchema = z.discriminatedUnion('type', [
 	z.object({
 		type: z.enum(['mercury-low-pressure', 'mercury-medium-pressure']),
 		ozoneFree: z.boolean().optional(),
-		lineWidthNm: positive('lineWidthNm').max(20).optional()
+		lineWidthNm: positive('lineWidthNm').max(20).optional(),
+		powerWithout185nm: z.boolean().optional()
 	}),
 	z.object({
 		type: z.literal('excimer'),
@@ -39,7 +40,7 @@ export const lampModelSchema = z.discriminatedUnion('type', [
 		fwhmNm: positive('fwhmNm').max(200),
 		mercuryLines: z.boolean().optional()
 	}),
-	z.object({ type: z.literal('spectrum'), spectrumId: z.number().int().positive() })
+	z.object({ type: z.literal('spectrum'), spectrumId: z.number().int().positive(), floor: z.enum(['remove', 'keep']).optional() })
 ]);
 export type LampModelInput = z.infer<typeof lampModelSchema>;
 

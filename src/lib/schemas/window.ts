@@ -13,7 +13,31 @@ export const windowRequestSchema = z.object({
 	product: z.object({ spectrumId: id, productPerSubstrate: number.optional() }).optional(),
 	solvent: z.object({ id }),
 	wall: z.object({ materialId: id, thicknessMm: number }),
-	pathCm: number,
+	/** Depth of the flat layer (slab vessel, the default); not used for round vessels. */
+	pathCm: number.optional(),
+	/** Reaction mode (API.md "Reaction modes, vessels and photostationary states"); default direct. */
+	reaction: z
+		.discriminatedUnion('type', [
+			z.object({ type: z.literal('direct') }),
+			z.object({
+				type: z.literal('photocatalytic'),
+				photocatalyst: z.object({ spectrumId: id, concentrationM: number, bleachingQuantumYield: number.optional() })
+			}),
+			z.object({
+				type: z.literal('reversible'),
+				product: z.object({ spectrumId: id }, { error: 'a reversible reaction needs the product spectrum: { spectrumId }' }),
+				quantumYieldBack: number,
+				thermalBackRateConstantPerS: number.optional()
+			})
+		], { error: 'reaction.type must be direct, photocatalytic or reversible' })
+		.optional(),
+	vessel: z
+		.discriminatedUnion('shape', [
+			z.object({ shape: z.literal('slab') }),
+			z.object({ shape: z.literal('cylinder'), innerDiameterCm: number }),
+			z.object({ shape: z.literal('annulus'), innerDiameterCm: number, outerDiameterCm: number })
+		], { error: 'vessel.shape must be slab, cylinder or annulus' })
+		.optional(),
 	lamps: z.array(id).max(60, 'at most 60 lamps').optional(),
 	quantumYield: number.optional(),
 	amountMol: number.optional(),
@@ -39,18 +63,47 @@ export const windowRequestSchema = z.object({
 });
 export type WindowRequest = z.infer<typeof windowRequestSchema>;
 
+/** Missing fields that depend on another field (→ 400): a flat vessel needs pathCm. */
+export function windowShapeIssues(r: WindowRequest): { field: string; message: string }[] {
+	if ((!r.vessel || r.vessel.shape === 'slab') && r.pathCm === undefined) return [{ field: 'pathCm', message: 'pathCm: a flat vessel (the default) needs its depth pathCm in cm; for a round vessel give vessel: { shape: "cylinder", innerDiameterCm }' }];
+	return [];
+}
+
 /** Physically impossible inputs (→ 422 with the field). */
 export function windowPhysicsIssues(r: WindowRequest): { field: string; message: string }[] {
 	const out: { field: string; message: string }[] = [];
 	const nonNeg = (field: string, v: number | undefined) => v !== undefined && v < 0 && out.push({ field, message: `${field} must not be negative` });
 	const pos = (field: string, v: number | undefined) => v !== undefined && v <= 0 && out.push({ field, message: `${field} must be above 0` });
+	// Φ > 1 is a chain (photochlorination, radical polymerisation); the longest chains reach ~10⁴ (API.md)
+	const maxPhi = (field: string, v: number | undefined) => v !== undefined && v > 1e4 && out.push({ field, message: `${field} must be at most 10⁴ (the longest radical chains); got ${v}` });
 	nonNeg('substrate.concentrationM', r.substrate.concentrationM);
 	r.others?.forEach((o, i) => nonNeg(`others[${i}].concentrationM`, o.concentrationM));
 	pos('pathCm', r.pathCm);
+	const v = r.vessel;
+	if (v && v.shape !== 'slab') {
+		for (const [k, d] of Object.entries(v)) if (k !== 'shape') {
+			pos(`vessel.${k}`, d as number);
+			if ((d as number) > 1000) out.push({ field: `vessel.${k}`, message: `vessel.${k} must be at most 1000 cm` });
+		}
+		if (v.shape === 'annulus' && v.innerDiameterCm > 0 && !(v.outerDiameterCm > v.innerDiameterCm)) {
+			out.push({ field: 'vessel.outerDiameterCm', message: `vessel.outerDiameterCm (${v.outerDiameterCm} cm) must be larger than vessel.innerDiameterCm (${v.innerDiameterCm} cm): the liquid fills the gap between them` });
+		}
+	}
+	if (r.pathCm !== undefined && r.pathCm > 1000) out.push({ field: 'pathCm', message: 'pathCm must be at most 1000 cm' });
+	const rx = r.reaction;
+	if (rx?.type === 'photocatalytic') {
+		pos('reaction.photocatalyst.concentrationM', rx.photocatalyst.concentrationM);
+		nonNeg('reaction.photocatalyst.bleachingQuantumYield', rx.photocatalyst.bleachingQuantumYield);
+		maxPhi('reaction.photocatalyst.bleachingQuantumYield', rx.photocatalyst.bleachingQuantumYield);
+	} else if (rx?.type === 'reversible') {
+		nonNeg('reaction.quantumYieldBack', rx.quantumYieldBack);
+		maxPhi('reaction.quantumYieldBack', rx.quantumYieldBack);
+		nonNeg('reaction.thermalBackRateConstantPerS', rx.thermalBackRateConstantPerS);
+	}
 	pos('wall.thicknessMm', r.wall.thicknessMm);
 	if (r.wall.thicknessMm > 100) out.push({ field: 'wall.thicknessMm', message: 'wall.thicknessMm must be at most 100 mm' });
 	pos('quantumYield', r.quantumYield);
-	if (r.quantumYield !== undefined && r.quantumYield > 2) out.push({ field: 'quantumYield', message: 'quantumYield above 2 is not a single-photon process; use the chain-free Φ' });
+	maxPhi('quantumYield', r.quantumYield);
 	pos('amountMol', r.amountMol);
 	pos('volumeL', r.volumeL);
 	r.rank?.walls?.forEach((w, i) => pos(`rank.walls[${i}].thicknessMm`, w.thicknessMm));

@@ -72,7 +72,10 @@ export function phosphorShape(model: PhosphorModel, grid: SpectralGrid): ShapeOn
 	return { values: band.values, totalArea: 1 };
 }
 
-/** Measured emission resampled linearly onto the grid (0 outside its range, negatives set to 0). */
+/**
+ * Measured emission resampled linearly onto the grid (0 outside its range, negatives set to 0). `totalArea` is scaled
+ * so that the off-grid share equals the file's own share of power outside the grid (resampling error cancels).
+ */
 export function measuredShape(model: MeasuredEmissionModel, grid: SpectralGrid): ShapeOnGrid {
 	const x = model.wavelengthNm;
 	const y = model.power;
@@ -85,7 +88,18 @@ export function measuredShape(model: MeasuredEmissionModel, grid: SpectralGrid):
 		const t = (wl - x[j]) / (x[j + 1] - x[j]);
 		values[i] = Math.max(0, y[j] + t * (y[j + 1] - y[j]));
 	}
-	let totalArea = 0;
-	for (let i = 1; i < x.length; i++) totalArea += ((Math.max(0, y[i]) + Math.max(0, y[i - 1])) / 2) * (x[i] - x[i - 1]);
+	const lo = grid.fromNm;
+	const hi = grid.fromNm + (grid.count - 1) * grid.stepNm;
+	let fileTotal = 0;
+	let fileInside = 0;
+	for (let i = 1; i < x.length; i++) {
+		const seg = ((Math.max(0, y[i]) + Math.max(0, y[i - 1])) / 2) * (x[i] - x[i - 1]);
+		fileTotal += seg;
+		const a = Math.max(x[i - 1], lo);
+		const b = Math.min(x[i], hi);
+		if (b > a) fileInside += seg * ((b - a) / (x[i] - x[i - 1]));
+	}
+	const gridArea = trapezoidArea(values, grid.stepNm);
+	const totalArea = fileInside > 0 ? (gridArea * fileTotal) / fileInside : fileTotal;
 	return { values, totalArea };
 }

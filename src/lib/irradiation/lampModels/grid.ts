@@ -43,16 +43,22 @@ export function addGaussianLines(
 /** Largest share of a model's power that may fall outside the grid before lampSpectrum refuses. */
 export const MAX_OUTSIDE_GRID_FRACTION = 0.5;
 
-/** Scales a shape to ∫P dλ = powerW on the grid; RangeError when nothing or less than half of it lies on the grid. */
+/**
+ * Scales a shape so that the model's whole area (on and off the grid) carries powerW: the power of lines or tails off the
+ * grid is reported as `outsideGridFraction`, never handed to the rest. RangeError when nothing, or less than half of the
+ * power, lies on the grid.
+ */
 export function normaliseToPower(shape: ShapeOnGrid, grid: SpectralGrid, powerW: number): { powerWPerNm: Float64Array; outsideGridFraction: number } {
 	const area = trapezoidArea(shape.values, grid.stepNm);
 	if (!(area > 0)) throw new RangeError('grid: the lamp emits nothing on this wavelength grid');
-	const f = powerW / area;
-	const powerWPerNm = new Float64Array(shape.values.length);
-	for (let i = 0; i < powerWPerNm.length; i++) powerWPerNm[i] = shape.values[i] * f;
 	const outside = Math.min(1, Math.max(0, shape.totalArea > 0 ? 1 - area / shape.totalArea : 0));
 	if (outside > MAX_OUTSIDE_GRID_FRACTION) {
 		throw new RangeError(`grid: ${(outside * 100).toFixed(0)} % of the lamp's power lies outside this wavelength grid`);
 	}
-	return { powerWPerNm, outsideGridFraction: outside };
+	// Discretisation makes the on-grid area differ from the analytic one by < 1e-4: then the grid area normalises exactly.
+	// Otherwise the model's own total does (off-grid power, or a line that comes on top of powerW, e.g. 185 nm Hg).
+	const f = shape.totalArea > 0 && Math.abs(1 - area / shape.totalArea) > 1e-4 ? powerW / shape.totalArea : powerW / area;
+	const powerWPerNm = new Float64Array(shape.values.length);
+	for (let i = 0; i < powerWPerNm.length; i++) powerWPerNm[i] = shape.values[i] * f;
+	return { powerWPerNm, outsideGridFraction: outside > 1e-4 ? outside : 0 };
 }

@@ -1,5 +1,5 @@
 /** Line sources: mercury low/medium pressure, excimer bands and lasers, as Gaussian-broadened lines. */
-import { MERCURY_LOW_PRESSURE_LINES, MERCURY_MEDIUM_PRESSURE_LINES } from '../mercuryLines';
+import { MERCURY_LOW_PRESSURE_LINES, MERCURY_LOW_PRESSURE_PEAK_NM, MERCURY_MEDIUM_PRESSURE_LINES, MERCURY_MEDIUM_PRESSURE_PEAK_NM } from '../mercuryLines';
 import { addGaussianLines } from './grid';
 import type { ExcimerEmitter, ExcimerModel, LaserModel, MercuryModel, ShapeOnGrid, SpectralGrid } from './types';
 
@@ -24,8 +24,18 @@ export function mercuryShape(model: MercuryModel, grid: SpectralGrid): ShapeOnGr
 	const all = lp ? MERCURY_LOW_PRESSURE_LINES : MERCURY_MEDIUM_PRESSURE_LINES;
 	const lines = model.ozoneFree ? all.filter((l) => l.wavelengthNm >= OZONE_FREE_ENVELOPE_CUTOFF_NM) : all;
 	const values = new Float64Array(grid.count);
-	const totalArea = addGaussianLines(values, grid, lines, model.lineWidthNm ?? (lp ? 1 : 2));
+	let totalArea = addGaussianLines(values, grid, lines, model.lineWidthNm ?? (lp ? 1 : 2));
+	// powerW without the 185 nm line (mercuryLines.ts convention): the line's power comes on top of powerW.
+	if (model.powerWithout185nm) totalArea -= lines.filter((l) => l.wavelengthNm < 200).reduce((s, l) => s + l.relativePower, 0);
 	return { values, totalArea };
+}
+
+/** The strongest line of a line source, at its own wavelength (nm); undefined for other models. */
+export function lineSourcePeakNm(model: MercuryModel | ExcimerModel | LaserModel): number {
+	if (model.type === 'mercury-low-pressure') return MERCURY_LOW_PRESSURE_PEAK_NM;
+	if (model.type === 'mercury-medium-pressure') return MERCURY_MEDIUM_PRESSURE_PEAK_NM;
+	if (model.type === 'excimer') return EXCIMER_EMITTERS[model.emitter].peakNm;
+	return (model as LaserModel).lineNm;
 }
 
 export function excimerShape(model: ExcimerModel, grid: SpectralGrid): ShapeOnGrid {

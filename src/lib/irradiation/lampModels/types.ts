@@ -2,8 +2,11 @@
 
 /** LED: Gaussian or Ohno (2005) line shape; `skew` in (−1, 1) splits the FWHM unevenly (see led.ts). */
 export interface LedModel { type: 'led'; peakNm: number; fwhmNm: number; shape?: 'gaussian' | 'ohno'; skew?: number }
-/** Mercury lamp: NIST line positions broadened to `lineWidthNm` FWHM (default 1 nm LP, 2 nm MP). */
-export interface MercuryModel { type: 'mercury-low-pressure' | 'mercury-medium-pressure'; ozoneFree?: boolean; lineWidthNm?: number }
+/**
+ * Mercury lamp: NIST line positions broadened to `lineWidthNm` FWHM (default 1 nm LP, 2 nm MP). powerW includes the
+ * 185 nm line unless `powerWithout185nm` (then the line comes on top); see mercuryLines.ts.
+ */
+export interface MercuryModel { type: 'mercury-low-pressure' | 'mercury-medium-pressure'; ozoneFree?: boolean; lineWidthNm?: number; powerWithout185nm?: boolean }
 export type ExcimerEmitter = 'Xe2' | 'KrCl' | 'KrF' | 'XeBr' | 'XeCl' | 'XeF';
 /** Dielectric-barrier excimer/exciplex lamp: one Gaussian band at the emitter's peak. */
 export interface ExcimerModel { type: 'excimer'; emitter: ExcimerEmitter; fwhmNm?: number }
@@ -32,9 +35,9 @@ export const CAUTION_GRID: SpectralGrid = { fromNm: 150, stepNm: 0.5, count: 190
 
 export interface LampSpectrum {
 	wavelengthNm: Float64Array;
-	/** Spectral power, W nm⁻¹; trapezoid area = powerW. */
+	/** Spectral power, W nm⁻¹; trapezoid area = powerW × (1 − outsideGridFraction). */
 	powerWPerNm: Float64Array;
-	/** Share of the model's power that fell outside the grid and was dropped before normalising (0–1). */
+	/** Share of the model's power that lies outside the grid (0–1): it is emitted, just not on this grid. */
 	outsideGridFraction: number;
 }
 

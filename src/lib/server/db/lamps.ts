@@ -81,20 +81,110 @@ export async function updateLampIfVersion(
 	return db()('lamps').where({ id, version }).update(row);
 }
 
-/** Calibrations of a lamp, newest first. */
-export async function listLampCalibrations(lampId: number) {
-	const rows = await db()('lamp_calibrations as c')
-		.leftJoin('users as u', 'u.id', 'c.created_by')
-		.where('c.lamp_id', lampId)
-		.orderBy('c.measured_at', 'desc')
-		.select('c.*', 'u.name as created_by_name');
-	return rows.map((r: Record<string, unknown>) => ({
+/** One stored calibration: the photon flux entering the solution through the named vessel wall. */
+export interface LampCalibrationRow {
+	id: number;
+	lampId: number;
+	method: 'actinometry' | 'radiometer' | string;
+	actinometer: string | null;
+	concentrationM: number | null;
+	photonFluxEinsteinPerS: number;
+	wavelengthNm: number | null;
+	wallMaterialId: number | null;
+	wallMaterialName: string | null;
+	wallThicknessMm: number | null;
+	vesselPathCm: number | null;
+	irradiatedVolumeMl: number | null;
+	irradiationTimeS: number | null;
+	quantumYieldUsed: number | null;
+	fractionAbsorbed: number | null;
+	opticalPowerW: number | null;
+	operator: string | null;
+	lampPowerW: number | null;
+	lampVersion: number | null;
+	inputs: Record<string, unknown> | null;
+	notes: string | null;
+	createdByName: string | null;
+	measuredAt: Date;
+}
+
+const numOrNull = (v: unknown) => (v == null ? null : Number(v));
+
+function toCalibration(r: Record<string, unknown>): LampCalibrationRow {
+	return {
 		id: Number(r.id),
+		lampId: Number(r.lamp_id),
 		method: String(r.method),
+		actinometer: (r.actinometer as string) ?? null,
+		concentrationM: numOrNull(r.concentration_m),
 		photonFluxEinsteinPerS: Number(r.photon_flux_einstein_per_s),
-		wavelengthNm: r.wavelength_nm == null ? null : Number(r.wavelength_nm),
+		wavelengthNm: numOrNull(r.wavelength_nm),
+		wallMaterialId: numOrNull(r.wall_material_id),
+		wallMaterialName: (r.wall_material_name as string) ?? null,
+		wallThicknessMm: numOrNull(r.wall_thickness_mm),
+		vesselPathCm: numOrNull(r.vessel_path_cm),
+		irradiatedVolumeMl: numOrNull(r.irradiated_volume_ml),
+		irradiationTimeS: numOrNull(r.irradiation_time_s),
+		quantumYieldUsed: numOrNull(r.quantum_yield_used),
+		fractionAbsorbed: numOrNull(r.fraction_absorbed),
+		opticalPowerW: numOrNull(r.optical_power_w),
+		operator: (r.operator as string) ?? null,
+		lampPowerW: numOrNull(r.lamp_power_w),
+		lampVersion: numOrNull(r.lamp_version),
+		inputs: r.inputs == null ? null : ((typeof r.inputs === 'string' ? JSON.parse(r.inputs) : r.inputs) as Record<string, unknown>),
 		notes: (r.notes as string) ?? null,
 		createdByName: (r.created_by_name as string) ?? null,
 		measuredAt: r.measured_at as Date
-	}));
+	};
+}
+
+/** Calibrations of a lamp, newest first (by measurement date, then by entry). */
+export async function listLampCalibrations(lampId: number): Promise<LampCalibrationRow[]> {
+	const rows = await db()('lamp_calibrations as c')
+		.leftJoin('users as u', 'u.id', 'c.created_by')
+		.leftJoin('wall_materials as w', 'w.id', 'c.wall_material_id')
+		.where('c.lamp_id', lampId)
+		.orderBy([{ column: 'c.measured_at', order: 'desc' }, { column: 'c.id', order: 'desc' }])
+		.select('c.*', 'u.name as created_by_name', 'w.name as wall_material_name');
+	return rows.map(toCalibration);
+}
+
+export type NewCalibration = Omit<LampCalibrationRow, 'id' | 'wallMaterialName' | 'createdByName'> & { createdBy: string };
+
+/** Stores a calibration; returns its id. */
+export async function insertLampCalibration(c: NewCalibration, conn: Knex | Knex.Transaction = db()): Promise<number> {
+	const [id] = await conn('lamp_calibrations').insert({
+		lamp_id: c.lampId,
+		method: c.method,
+		actinometer: c.actinometer,
+		concentration_m: c.concentrationM,
+		photon_flux_einstein_per_s: c.photonFluxEinsteinPerS,
+		wavelength_nm: c.wavelengthNm,
+		wall_material_id: c.wallMaterialId,
+		wall_thickness_mm: c.wallThicknessMm,
+		vessel_path_cm: c.vesselPathCm,
+		irradiated_volume_ml: c.irradiatedVolumeMl,
+		irradiation_time_s: c.irradiationTimeS,
+		quantum_yield_used: c.quantumYieldUsed,
+		fraction_absorbed: c.fractionAbsorbed,
+		optical_power_w: c.opticalPowerW,
+		operator: c.operator,
+		lamp_power_w: c.lampPowerW,
+		lamp_version: c.lampVersion,
+		inputs: c.inputs ? JSON.stringify(c.inputs) : null,
+		notes: c.notes,
+		created_by: c.createdBy,
+		measured_at: c.measuredAt
+	});
+	return Number(id);
+}
+
+/** Days after which a group's lamp calibrations count as stale (null: the default). */
+export async function groupCalibrationIntervalDays(groupId: number): Promise<number | null> {
+	const r = await db()('groups').where({ id: groupId }).first('calibration_interval_days');
+	return r?.calibration_interval_days == null ? null : Number(r.calibration_interval_days);
+}
+
+export async function setGroupCalibrationIntervalDays(groupId: number, days: number): Promise<void> {
+	await db()('groups').where({ id: groupId }).update({ calibration_interval_days: days });
 }

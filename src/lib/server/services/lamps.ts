@@ -7,13 +7,14 @@ import { cautionsForSpectrum, spectralBandShares } from '$lib/irradiation/cautio
 import {
 	CAUTION_GRID,
 	DEFAULT_LAMP_GRID,
+	lampPeakNm,
 	lampSpectrum,
-	peakWavelengthNm,
 	photonFluxSpectrum,
 	totalPhotonFluxEinsteinPerS,
 	type LampModel,
 	type SpectralGrid
 } from '$lib/irradiation/lamps';
+import { measuredEmissionShape, type FloorChoice, type FloorEstimate } from '$lib/irradiation/lampModels/measuredEmission';
 import { findSpectrumById } from '$lib/server/db/spectra';
 import { bufferToFloat64 } from '$lib/server/db/spectraBlobs';
 import { ApiError } from '$lib/server/http';
@@ -21,45 +22,57 @@ import { canReadRow, membershipsOf } from '$lib/server/policy';
 import type { LampModelInput } from '$lib/schemas/lamps';
 import type { LampRow } from '$lib/server/db/lamps';
 
-/** Turns an API lamp model into a physics model; a `spectrum` model loads a visible emission spectrum (422 otherwise). */
-export async function resolveLampModel(model: LampModelInput, locals: App.Locals): Promise<LampModel> {
-	if (model.type !== 'spectrum') return model as LampModel;
+/** A resolved lamp model; for a measured spectrum also how its units and floor were handled. */
+export interface ResolvedLamp {
+	model: LampModel;
+	emission?: { spectrumId: number; spectrumName: string; yUnit: string; xUnit: string; quantity: 'power' | 'photon'; floor: FloorEstimate; floorChoice: FloorChoice; warnings: string[] };
+}
+
+/**
+ * Turns an API lamp model into a physics model; a `spectrum` model loads a visible emission spectrum (422 otherwise) from
+ * its original points and units: photon units and counts stay photon spectra, the axis Jacobian is applied for cm⁻¹/eV,
+ * a raw-count dark floor is removed unless `floor: 'keep'` (lampModels/measuredEmission.ts).
+ */
+export async function resolveLamp(model: LampModelInput, locals: App.Locals): Promise<ResolvedLamp> {
+	if (model.type !== 'spectrum') return { model: model as LampModel };
 	const row = await findSpectrumById(model.spectrumId);
 	const memberships = await membershipsOf(locals.user?.id);
 	const visible =
 		row && !row.deleted_at && canReadRow(locals.user, memberships, { ownerId: row.owner_id, groupId: Number(row.group_id), visibility: row.visibility });
 	if (!row || !visible) throw new ApiError(422, 'unknown_spectrum', `model.spectrumId ${model.spectrumId} is not a spectrum you can see.`, { field: 'model.spectrumId' });
 	if (row.kind !== 'emission') throw new ApiError(422, 'not_emission', `Spectrum ${model.spectrumId} is a ${row.kind} spectrum, not an emission spectrum.`, { field: 'model.spectrumId' });
-	const x = bufferToFloat64(row.x_nm);
-	const y = bufferToFloat64(row.y_normalised);
-	// Measured emission: negative counts (baseline noise) carry no power.
-	return { type: 'measured', wavelengthNm: Array.from(x), power: Array.from(y, (v) => Math.max(0, v)) };
+	// The importers may store photon units under y_unit or only under y_unit_original: either names the quantity.
+	const yUnit = [row.y_unit_original, row.y_unit].find((u) => u && u !== 'relative') ?? 'relative';
+	const shape = measuredEmissionShape({ x: bufferToFloat64(row.x_original), y: bufferToFloat64(row.y_original), xUnit: row.x_unit_original, yUnit, floor: model.floor });
+	if (shape.wavelengthNm.length < 2 || !shape.power.some((v) => v > 0)) {
+		throw new ApiError(422, 'empty_emission', `Spectrum ${model.spectrumId} has no emission left above its floor.`, { field: 'model.spectrumId' });
+	}
+	return {
+		model: { type: 'measured', wavelengthNm: shape.wavelengthNm, power: shape.power },
+		emission: { spectrumId: Number(row.id), spectrumName: row.name, yUnit, xUnit: row.x_unit_original, quantity: shape.quantity, floor: shape.floor, floorChoice: model.floor ?? (yUnit === 'counts' ? 'remove' : 'keep'), warnings: shape.warnings }
+	};
 }
 
-/**
- * A warning when a measured emission spectrum sits on a flat floor (its lower quartile above 2 % of its peak):
- * typical of raw detector counts without dark subtraction. The floor is counted as light, so say so.
- */
-export function emissionFloorWarning(model: LampModel): string | null {
-	if (model.type !== 'measured' || model.power.length < 20) return null;
-	const sorted = [...model.power].sort((a, b) => a - b);
-	const max = sorted[sorted.length - 1];
-	const floor = sorted[Math.floor(sorted.length / 4)];
-	if (!(max > 0) || floor / max <= 0.02) return null;
-	return `The measured emission sits on a flat floor of about ${Math.round((100 * floor) / max)} % of its peak across ${Math.round(model.wavelengthNm[0])}–${Math.round(model.wavelengthNm[model.wavelengthNm.length - 1])} nm (raw detector counts without dark subtraction?). The floor is counted as light; subtract the dark spectrum before uploading for a true photon flux.`;
+/** The physics model alone (see resolveLamp). */
+export async function resolveLampModel(model: LampModelInput, locals: App.Locals): Promise<LampModel> {
+	return (await resolveLamp(model, locals)).model;
 }
 
-/** Optical power reaching the vessel, W. */
+/** Optical power reaching the vessel, W (nameplate power × coupling factor; the model basis without a calibration). */
 export const vesselPowerW = (lamp: Pick<LampRow, 'powerW' | 'couplingFactor'>) => lamp.powerW * lamp.couplingFactor;
 
-/** Emission, photon flux, peak, band shares and cautions of a lamp (model already resolved). */
-export function describeLamp(model: LampModel, powerW: number, grid: SpectralGrid = DEFAULT_LAMP_GRID) {
+/**
+ * Emission, photon flux, peak, band shares and cautions of a lamp (model already resolved). The spectrum and photon flux
+ * are at `powerW` (the power reaching the vessel); bands and cautions come from what the lamp itself emits,
+ * `emittedPowerW` (default powerW) — a coupling factor never removes a caution.
+ */
+export function describeLamp(model: LampModel, powerW: number, grid: SpectralGrid = DEFAULT_LAMP_GRID, emittedPowerW = powerW) {
 	const spectrum = lampSpectrum(model, powerW, grid);
-	const wide = lampSpectrum(model, powerW, CAUTION_GRID);
+	const wide = lampSpectrum(model, emittedPowerW, CAUTION_GRID);
 	return {
 		spectrum,
 		photonFluxPerNm: photonFluxSpectrum(spectrum),
-		peakNm: peakWavelengthNm(spectrum),
+		peakNm: lampPeakNm(model, spectrum),
 		photonFluxEinsteinPerS: totalPhotonFluxEinsteinPerS(spectrum),
 		bands: spectralBandShares(wide, 0.01),
 		// the wide grid keeps VUV lines (185 nm Hg, 172 nm Xe₂*) that decide the ozone caution
@@ -73,7 +86,7 @@ export function describeModel(model: LampModelInput): string {
 		case 'led':
 			return `LED ${model.peakNm} nm, FWHM ${model.fwhmNm} nm${model.shape === 'ohno' ? ' (Ohno shape)' : ''}`;
 		case 'mercury-low-pressure':
-			return `Low-pressure mercury${model.ozoneFree ? ', ozone-free envelope' : ''}`;
+			return `Low-pressure mercury${model.ozoneFree ? ', ozone-free envelope' : model.powerWithout185nm ? ', power given without the 185 nm line' : ', power including the 185 nm line'}`;
 		case 'mercury-medium-pressure':
 			return `Medium-pressure mercury${model.ozoneFree ? ', ozone-free envelope' : ''}`;
 		case 'excimer':
@@ -87,6 +100,6 @@ export function describeModel(model: LampModelInput): string {
 		case 'phosphor':
 			return `Phosphor tube, peak ${model.peakNm} nm, FWHM ${model.fwhmNm} nm`;
 		case 'spectrum':
-			return `Measured emission spectrum #${model.spectrumId}`;
+			return `Measured emission spectrum #${model.spectrumId}${model.floor === 'keep' ? ', floor kept' : ''}`;
 	}
 }

@@ -1,22 +1,31 @@
 /** Orchestration of /api/lamps and the /lamps pages: validate → authorise → persist → describe. */
 import { lampCreateSchema, lampPatchSchema } from '$lib/schemas/lamps';
-import { findLamp, insertLamp, listLamps, updateLampIfVersion, type LampRow } from '$lib/server/db/lamps';
+import { findLamp, insertLamp, listLampCalibrations, listLamps, updateLampIfVersion, type LampRow } from '$lib/server/db/lamps';
 import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
 import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
-import { describeLamp, describeModel, emissionFloorWarning, resolveLampModel, vesselPowerW } from './lamps';
+import { calibrationToApi, lampBasis } from './lampCalibrations';
+import { describeLamp, describeModel, resolveLamp, resolveLampModel, vesselPowerW } from './lamps';
 
-/** The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS). */
+/**
+ * The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS; after a calibration
+ * photonFluxBasis 'actinometry' | 'radiometer' and calibrations). photonFluxEinsteinPerS is the calibrated flux entering
+ * the solution through the calibration vessel when there is one, else the model × power × coupling flux at the vessel
+ * (`modelPhotonFluxEinsteinPerS` always gives the latter).
+ */
 export async function lampToApi(lamp: LampRow, locals: App.Locals) {
-	let derived: { peakNm: number | null; photonFluxEinsteinPerS: number | null; problem?: string; warnings: string[] } = { peakNm: null, photonFluxEinsteinPerS: null, warnings: [] };
+	let derived: { peakNm: number | null; modelPhotonFluxEinsteinPerS: number | null; problem?: string; warnings: string[]; emission?: unknown } = { peakNm: null, modelPhotonFluxEinsteinPerS: null, warnings: [] };
 	try {
-		const model = await resolveLampModel(lamp.model, locals);
-		const d = describeLamp(model, vesselPowerW(lamp));
-		const floor = emissionFloorWarning(model);
-		derived = { peakNm: d.peakNm, photonFluxEinsteinPerS: d.photonFluxEinsteinPerS, warnings: floor ? [floor] : [] };
+		const resolved = await resolveLamp(lamp.model, locals);
+		const d = describeLamp(resolved.model, vesselPowerW(lamp), undefined, lamp.powerW);
+		const warnings = [...(resolved.emission?.warnings ?? [])];
+		if (d.spectrum.outsideGridFraction > 0.001) warnings.push(`${(d.spectrum.outsideGridFraction * 100).toPrecision(2)} % of the lamp's optical power lies outside 190–1100 nm (e.g. the 185 nm mercury line) and is not part of the planner's photon flux.`);
+		derived = { peakNm: d.peakNm, modelPhotonFluxEinsteinPerS: d.photonFluxEinsteinPerS, warnings, emission: resolved.emission };
 	} catch (e) {
 		derived.problem = e instanceof Error ? e.message : String(e);
 	}
+	const calibrations = await listLampCalibrations(lamp.id);
+	const basis = await lampBasis(lamp, calibrations);
 	return {
 		id: lamp.id,
 		groupId: lamp.groupId,
@@ -28,7 +37,14 @@ export async function lampToApi(lamp: LampRow, locals: App.Locals) {
 		model: lamp.model,
 		modelLabel: describeModel(lamp.model),
 		version: lamp.version,
-		...derived
+		...derived,
+		photonFluxEinsteinPerS: basis.latest ? basis.latest.photonFluxEinsteinPerS : derived.modelPhotonFluxEinsteinPerS,
+		photonFluxBasis: basis.photonFluxBasis,
+		photonFluxBasisLabel: basis.label,
+		calibrationIntervalDays: basis.intervalDays,
+		calibrationAgeDays: basis.ageDays,
+		calibrationStale: basis.stale,
+		calibrations: calibrations.map(calibrationToApi)
 	};
 }
 

@@ -1,17 +1,18 @@
 /**
  * Puts the Window finder's ingredients on the 0.5 nm computation grid (PRODUCT.md): species ε from library spectra,
  * solvent absorbance per cm (measured spectrum when linked, else the cut-off edge model), wall transmission at the
- * chosen thickness, lamp photon flux per nm (scaled to the latest calibration when one exists).
+ * chosen thickness, lamp photon flux per nm (from the latest calibration when one exists: lampCalibrations.ts).
  */
 import { COMPUTATION_GRID, resampleOnto } from '$lib/irradiation/wavelengthGrid';
 import { solventAbsorbanceOnGrid } from '$lib/irradiation/solvents';
 import { wallTransmissionOnGrid } from '$lib/irradiation/walls';
 import { getSolvent } from '$lib/server/db/solvents';
 import { getWallMaterial } from '$lib/server/db/wallMaterials';
-import { findLamp, listLampCalibrations, listLamps } from '$lib/server/db/lamps';
+import { findLamp, listLamps } from '$lib/server/db/lamps';
 import { findSpectrumById, type SpectrumRow } from '$lib/server/db/spectra';
 import { bufferToFloat64 } from '$lib/server/db/spectraBlobs';
 import { ApiError } from '$lib/server/http';
+import { plannerPhotonFlux } from './lampCalibrations';
 import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
 import { visibleSpectrum, type Caller } from './spectraAccess';
 
@@ -92,16 +93,11 @@ export async function lampsOnGrid(locals: App.Locals, caller: Caller, ids: numbe
 	const out = [];
 	for (const lamp of lamps) {
 		const model = await resolveLampModel(lamp.model, locals);
-		const d = describeLamp(model, vesselPowerW(lamp), GRID);
-		let q = d.photonFluxPerNm;
-		let basis = 'model × power × coupling';
-		const [latest] = await listLampCalibrations(lamp.id);
-		if (latest && d.photonFluxEinsteinPerS > 0) {
-			const k = latest.photonFluxEinsteinPerS / d.photonFluxEinsteinPerS;
-			q = q.map((v) => v * k);
-			basis = `calibrated (${latest.method}, ${new Date(latest.measuredAt).toISOString().slice(0, 10)})`;
-		}
-		out.push({ lamp, model, photonFluxPerNm: q, peakNm: d.peakNm, cautions: d.cautions, basis });
+		// cautions from what the lamp itself emits (lamp.powerW), not from the power coupled into the vessel
+		const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);
+		// calibration (lamps' own module): the flux entering through the calibration wall, the wall applied once
+		const planned = await plannerPhotonFlux(lamp, d.photonFluxPerNm, groupIds);
+		out.push({ lamp, model, photonFluxPerNm: planned.photonFluxPerNm, peakNm: d.peakNm, cautions: d.cautions, basis: planned.basis.photonFluxBasis, calibration: planned });
 	}
 	return out;
 }
