@@ -137,6 +137,16 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'plans page', method: 'GET', path: '/plans', kind: 'page', expect: all(303, 200) },
 	{ name: 'unknown plan page', method: 'GET', path: '/plans/999999', kind: 'page', expect: all(303, 404) },
 	{ name: 'submit unknown plan form', method: 'POST', path: '/plans/999999?/submit', kind: 'action', form: {}, expect: all(303, 404) },
+	// ---- lamps helper: actinometry, calibrations, calibration interval ----
+	{ name: 'actinometers', method: 'GET', path: '/api/actinometers', kind: 'api', expect: all(200, 200) },
+	{ name: 'actinometry run, empty body', method: 'POST', path: '/api/actinometry', kind: 'api', json: {}, expect: { anonymous: 401, viewer: 403, member: 400, lead: 400, outsider: 400, admin: 400 } },
+	{ name: 'demo lamp calibrations', method: 'GET', path: '/api/lamps/1/calibrations', kind: 'api', expect: demoGroupApi(200) },
+	{ name: 'radiometer reading, negative power', method: 'POST', path: '/api/lamps/1/calibrations', kind: 'api', json: { kind: 'radiometer', opticalPowerW: -1 }, expect: { anonymous: 401, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
+	{ name: 'demo lamp actinometry page', method: 'GET', path: '/lamps/1/actinometry', kind: 'page', expect: demoGroup(200) },
+	{ name: 'record actinometry form, no time', method: 'POST', path: '/lamps/1/actinometry?/record', kind: 'action', form: { actinometer: 'ferrioxalate', concentrationM: '0.006' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
+	{ name: 'record radiometer form, no power', method: 'POST', path: '/lamps/1/actinometry?/radiometer', kind: 'action', form: { materialId: '1' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
+	{ name: 'set calibration interval form, zero days', method: 'POST', path: '/lamps/1?/interval', kind: 'action', form: { intervalDays: '0' }, expect: leadOnly(400) },
+	{ name: 'preview lamp form, negative power', method: 'POST', path: '/lamps/new?/preview', kind: 'action', form: { name: '', modelType: 'led', powerW: '-1', peakNm: '365', fwhmNm: '10' }, expect: all(303, 400) },
 	// ---- finder: the Window finder's save action (role first: viewers 403; others fail validation, nothing saved) ----
 	{ name: 'window finder save form, no inputs', method: 'POST', path: '/window?/save', kind: 'action', form: { title: 'x', inputs: '{}' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 400, admin: 400 } }
 ];

@@ -17,7 +17,7 @@ import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, roleAtLeast } from '$lib/server/policy';
 import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
 import { findLamp } from '$lib/server/db/lamps';
-import { loadGroupRow } from './groupChoice';
+import { loadGroupRow, requireMemberSomewhere } from './groupChoice';
 
 const visibleLamp = (locals: App.Locals, idParam: string | undefined) => loadGroupRow(locals, idParam, findLamp, 'lamp');
 
@@ -71,6 +71,7 @@ async function lampForWrite(locals: App.Locals, lampId: number) {
 
 /** POST /api/actinometry: compute a run, store it as a calibration of the lamp; writes nothing on bad input. */
 export async function recordActinometry(locals: App.Locals, body: unknown) {
+	await requireMemberSomewhere(locals);
 	const parsed = actinometryRequestSchema.safeParse(body);
 	if (!parsed.success) throw zodToApiError(parsed.error);
 	const req = parsed.data;
@@ -119,11 +120,11 @@ const transmitted = (q: Float64Array) => {
 
 /** POST /api/lamps/:id/calibrations `{ kind: 'radiometer', opticalPowerW, vessel }`: a power-meter reading at the vessel. */
 export async function recordRadiometer(locals: App.Locals, idParam: string | undefined, body: unknown) {
-	const lampSeen = await visibleLamp(locals, idParam);
+	const lamp = await visibleLamp(locals, idParam);
+	await requireGroupRole(locals, lamp.groupId, 'member');
 	const parsed = radiometerRequestSchema.safeParse(body);
 	if (!parsed.success) throw zodToApiError(parsed.error);
 	const req = parsed.data;
-	const lamp = await lampForWrite(locals, lampSeen.id);
 	const material = await wallFor(lamp.groupId, req.vessel.materialId);
 	const model = await resolveLampModel(lamp.model, locals);
 	const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);

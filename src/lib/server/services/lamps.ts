@@ -103,3 +103,33 @@ export function describeModel(model: LampModelInput): string {
 			return `Measured emission spectrum #${model.spectrumId}${model.floor === 'keep' ? ', floor kept' : ''}`;
 	}
 }
+
+/**
+ * Preview of a lamp before it is saved: its spectrum on a 1 nm plot grid, photon flux, peak, bands and cautions; for a
+ * measured spectrum also the curve with its floor kept, so that the user sees what the floor removal does.
+ */
+export async function previewLamp(model: LampModelInput, powerW: number, couplingFactor: number, locals: App.Locals) {
+	const resolved = await resolveLamp(model, locals);
+	const d = describeLamp(resolved.model, powerW * couplingFactor, DEFAULT_LAMP_GRID, powerW);
+	const pick = (a: ArrayLike<number>) => Array.from({ length: Math.ceil(a.length / 2) }, (_, k) => a[2 * k]);
+	const x = pick(d.spectrum.wavelengthNm);
+	const norm = (a: number[]) => {
+		const m = Math.max(...a);
+		return a.map((v) => (m > 0 ? Math.round((v / m) * 1e5) / 1e5 : 0));
+	};
+	let kept: number[] | null = null;
+	if (model.type === 'spectrum' && resolved.emission?.floor.removed) {
+		const raw = await resolveLamp({ ...model, floor: 'keep' }, locals);
+		kept = norm(pick(lampSpectrum(raw.model, 1, DEFAULT_LAMP_GRID).powerWPerNm));
+	}
+	return {
+		x,
+		power: norm(pick(d.spectrum.powerWPerNm)),
+		kept,
+		peakNm: d.peakNm,
+		photonFluxEinsteinPerS: d.photonFluxEinsteinPerS,
+		bands: d.bands.map((b) => ({ band: b.band, fromNm: b.fromNm, toNm: b.toNm, fraction: b.fraction })),
+		cautions: d.cautions,
+		emission: resolved.emission ?? null
+	};
+}

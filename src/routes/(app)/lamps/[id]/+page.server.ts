@@ -1,5 +1,6 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { listLampCalibrations } from '$lib/server/db/lamps';
+import { findLamp, setGroupCalibrationIntervalDays } from '$lib/server/db/lamps';
+import { calibrationRights } from '$lib/server/services/lampCalibrations';
 import { ApiError } from '$lib/server/http';
 import { membershipsOf, roleAtLeast } from '$lib/server/policy';
 import { describeLamp, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
@@ -21,7 +22,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	let bands: { band: string; fromNm: number; toNm: number; fraction: number }[] = [];
 	let cautions: Awaited<ReturnType<typeof describeLamp>>['cautions'] = [];
 	try {
-		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp));
+		// spectrum and flux at the vessel (power × coupling); bands and cautions from what the lamp itself emits
+		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp), undefined, lamp.powerW);
 		// Plot on a 1 nm grid (every second point of the 0.5 nm planner grid).
 		const x: number[] = [], power: number[] = [], flux: number[] = [];
 		for (let i = 0; i < d.spectrum.wavelengthNm.length; i += 2) {
@@ -42,8 +44,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		plot,
 		bands,
 		cautions,
-		calibrations: await listLampCalibrations(lamp.id),
-		canEdit: locals.user.siteRole === 'admin' || roleAtLeast(role, 'member')
+		canEdit: locals.user.siteRole === 'admin' || roleAtLeast(role, 'member'),
+		rights: await calibrationRights(locals, lamp)
 	};
 };
 
@@ -59,5 +61,24 @@ export const actions: Actions = {
 			return fail(f.status, { values: formValues(form), message: f.message, field: f.field });
 		}
 		return { saved: true };
+	},
+	/** A lead sets how many days a calibration stays current in the lamp's group (1–3650). */
+	interval: async ({ request, locals, params, url }) => {
+		if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
+		const form = await request.formData();
+		let lamp;
+		try {
+			lamp = await visibleLamp(locals, params.id);
+		} catch (e) {
+			if (e instanceof ApiError) error(e.status, e.message);
+			throw e;
+		}
+		if (!(await calibrationRights(locals, lamp)).canSetInterval) return fail(403, { intervalMessage: 'Only a lead of the group sets the calibration interval.', field: 'intervalDays' });
+		const days = Number(String(form.get('intervalDays') ?? '').trim());
+		if (!Number.isInteger(days) || days < 1 || days > 3650) {
+			return fail(400, { intervalMessage: 'intervalDays: give a whole number of days between 1 and 3650.', field: 'intervalDays', intervalValue: String(form.get('intervalDays') ?? '') });
+		}
+		await setGroupCalibrationIntervalDays((await findLamp(lamp.id))!.groupId, days);
+		return { intervalSaved: days };
 	}
 };
