@@ -16,6 +16,8 @@ export const DEMO_GROUPS = [
 export const DEMO_USERS: { id: string; email: string; name: string; siteRole: 'admin' | 'user'; group?: { slug: string; role: Role } }[] = [
 	{ id: 'demo-admin', email: 'admin@windowsill.test', name: 'Site Admin (demo)', siteRole: 'admin' },
 	{ id: 'demo-lead', email: 'lead@windowsill.test', name: 'Dr. Ilse Marwick', siteRole: 'user', group: { slug: 'harbourlight', role: 'lead' } },
+	// A second lead of the demo group: reviews plans the first lead wrote (nobody approves their own plan).
+	{ id: 'demo-lead2', email: 'lead2@windowsill.test', name: 'Dr. Maelis Orrin', siteRole: 'user', group: { slug: 'harbourlight', role: 'lead' } },
 	{ id: 'demo-member', email: 'member@windowsill.test', name: 'Tomasz Ferrante', siteRole: 'user', group: { slug: 'harbourlight', role: 'member' } },
 	{ id: 'demo-viewer', email: 'viewer@windowsill.test', name: 'Ana Quibell', siteRole: 'user', group: { slug: 'harbourlight', role: 'viewer' } },
 	{ id: 'demo-outsider', email: 'outsider@windowsill.test', name: 'Rafe Oyelaran', siteRole: 'user', group: { slug: 'quillon', role: 'member' } }
