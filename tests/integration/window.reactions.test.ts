@@ -138,7 +138,7 @@ describe('POST /api/window — reaction modes', () => {
 describe('plans keep the reaction mode and vessel', () => {
 	it('stores the new fields with the inputs and recomputed results; bad input saves nothing', async () => {
 		const inputs = body({ reaction: { type: 'photocatalytic', photocatalyst: { spectrumId: ids.catalyst, concentrationM: 0.001 } }, vessel: { shape: 'cylinder', innerDiameterCm: 2 }, pathCm: undefined });
-		const plan = await createPlan(localsOf('member'), { title: 'spx photoredox plan', inputs, groupId: groupA });
+		const { plan } = await createPlan(localsOf('member'), { title: 'spx photoredox plan', inputs, groupId: groupA });
 		const row = await db()('plans').where({ id: plan.id }).first();
 		const stored = typeof row.inputs === 'string' ? JSON.parse(row.inputs) : row.inputs;
 		expect(stored.reaction).toEqual(inputs.reaction);

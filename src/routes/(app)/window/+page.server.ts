@@ -98,7 +98,8 @@ export const actions: Actions = {
 		}
 		const idempotencyKey = String(form.get('idempotencyKey') ?? '') || undefined;
 		try {
-			const plan = await createPlan(locals, { title, inputs, query: String(form.get('query') ?? '') || undefined, idempotencyKey });
+			// One plan per key (the plans service keeps it): a repeated submit answers the plan saved the first time.
+			const { plan } = await createPlan(locals, { title, inputs, query: String(form.get('query') ?? '') || undefined, idempotencyKey });
 			return { saved: { id: plan.id, title: plan.title } };
 		} catch (e) {
 			if (!(e instanceof ApiError)) throw e;

@@ -24,7 +24,10 @@ export interface LampAnswer {
 	unreachableReason?: string | null;
 	photostationaryProductFraction?: number | null;
 	timeTo90PctOfStationaryS?: number | null;
-	penetrationDepthCm?: number | null;
+	/** Depth (cm) in which 90 % of this lamp's photons entering the mixture are absorbed; null when they never are. */
+	penetrationDepth90Cm?: number | null;
+	/** Highest conversion reachable under this lamp (photostationary state or catalyst bleaching). */
+	limitConversion?: number | null;
 	timeCourse?: { timeS: number[]; conversion: number[] } | null;
 }
 
@@ -36,7 +39,7 @@ export interface Curves {
 	wallTransmission: number[];
 	lamps: { id: number; name: string; emission: number[]; photonFluxPerNm?: number[] }[];
 	photocatalystAbsorbance?: number[];
-	productAbsorbance?: number[];
+	productAbsorbanceAtFullConversion?: number[];
 }
 
 /** The photons a lamp sends to the vessel, by where they end up (fractions of the photons reaching the wall). */
@@ -181,7 +184,7 @@ export function curvesToCsv(c: Curves, names: { substrate: string; solvent: stri
 		{ head: `solvent A over ${names.pathCm} cm (${names.solvent})`, y: c.solventAbsorbance },
 		{ head: `A over ${names.pathCm} cm: ${names.substrate}`, y: c.substrateAbsorbance },
 		...(c.photocatalystAbsorbance ? [{ head: `A over ${names.pathCm} cm: ${names.photocatalyst ?? 'photocatalyst'}`, y: c.photocatalystAbsorbance }] : []),
-		...(c.productAbsorbance ? [{ head: `A over ${names.pathCm} cm: ${names.product ?? 'product'}`, y: c.productAbsorbance }] : []),
+		...(c.productAbsorbanceAtFullConversion ? [{ head: `A over ${names.pathCm} cm: ${names.product ?? 'product'} at full conversion`, y: c.productAbsorbanceAtFullConversion }] : []),
 		...c.others.map((o) => ({ head: `A over ${names.pathCm} cm: ${o.name}`, y: o.absorbance })),
 		...c.lamps.map((l) =>
 			l.photonFluxPerNm
