@@ -195,5 +195,19 @@ test.describe('Window finder design', () => {
 		await expect(page.getByTestId('save-bar').getByRole('status').getByRole('link')).toBeVisible();
 		await page.waitForTimeout(1500);
 		expect(await count()).toBe(1);
+		// without JavaScript the browser may post the form twice: the server keeps one plan per idempotencyKey
+		const form = {
+			title: `${title} (no script)`,
+			inputs: await page.locator('input[name="inputs"]').inputValue(),
+			query: '',
+			idempotencyKey: crypto.randomUUID()
+		};
+		const origin = new URL(page.url()).origin;
+		for (let k = 0; k < 2; k++) {
+			const r = await page.request.post('/window?/save', { form, headers: { origin, accept: 'text/html' }, maxRedirects: 0 });
+			expect(r.status()).toBe(200);
+		}
+		const plans = (await (await page.request.get('/api/plans')).json()) as { title: string }[];
+		expect(plans.filter((p) => p.title === form.title)).toHaveLength(1);
 	});
 });
