@@ -1,7 +1,8 @@
 /**
  * Windowsill design system: a warm "paper" ground, deep "ink" text, and accents named after
  * what they mean in the product — `lumen` (light, lamps), `glass` (walls, transmission),
- * `uv` (short-wavelength cautions) and `leaf` / `ember` for good / bad outcomes.
+ * `uv` (short-wavelength cautions) and `leaf` / `ember` for good / bad outcomes; `budget` colours the five
+ * destinations of a lamp's photons (wall, solvent, other species, intended absorber, passing through).
  * Loaded by Tailwind 4 through `@config` in src/app.css.
  */
 import type { Config } from 'tailwindcss';
@@ -20,7 +21,9 @@ export default {
 				glass: { 50: '#e9f5f3', 100: '#c8e8e3', 300: '#7fc6bb', 500: '#3c9c8f', 700: '#276e65', 900: '#173f3a' },
 				uv: { 50: '#f3eefc', 100: '#e2d5f8', 300: '#b596ec', 500: '#7d4fd6', 700: '#5a31a6', 900: '#321a5e' },
 				leaf: { 100: '#dcefd8', 500: '#4b8f3f', 700: '#336529' },
-				ember: { 100: '#f8dcd5', 500: '#c4492f', 700: '#8f2f1c' }
+				ember: { 100: '#f8dcd5', 500: '#c4492f', 700: '#8f2f1c' },
+				// Where a lamp's photons go (the photon budget bars on the Window finder); also used by the plots.
+				budget: { wall: '#276e65', solvent: '#8c9dbd', other: '#c4492f', intended: '#e9a23b', through: '#efe9db' }
 			},
 			fontFamily: {
 				sans: ['"Inter Variable"', 'system-ui', 'sans-serif'],

@@ -151,7 +151,8 @@ export const ROLE_MATRIX_ROWS: MatrixRow[] = [
 	{ name: 'record radiometer form, no power', method: 'POST', path: '/lamps/1/actinometry?/radiometer', kind: 'action', form: { materialId: '1' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 404, admin: 400 } },
 	{ name: 'set calibration interval form, zero days', method: 'POST', path: '/lamps/1?/interval', kind: 'action', form: { intervalDays: '0' }, expect: leadOnly(400) },
 	{ name: 'preview lamp form, negative power', method: 'POST', path: '/lamps/new', kind: 'action', form: { intent: 'preview', name: '', modelType: 'led', powerW: '-1', peakNm: '365', fwhmNm: '10' }, expect: all(303, 400) },
-
+	// ---- finder: the Window finder's save action (role first: viewers 403; others fail validation, nothing saved) ----
+	{ name: 'window finder save form, no inputs', method: 'POST', path: '/window?/save', kind: 'action', form: { title: 'x', inputs: '{}' }, expect: { anonymous: 303, viewer: 403, member: 400, lead: 400, outsider: 400, admin: 400 } },
 	// ---- desk: plans review, recompute, report, matrix, audit, outbox ----
 	// Group 1 is "harbourlight" in the freshly seeded test database; plan 999999 does not exist.
 	{ name: 'list plans, unknown state filter', method: 'GET', path: '/api/plans?state=pending', kind: 'api', expect: all(401, 400) },

@@ -307,7 +307,10 @@ function curvesFor(
 		lamps: lamps.map((l) => {
 			let max = 0;
 			for (const v of l.photonFluxPerNm) if (v > max) max = v;
-			return { id: l.lamp.id, name: l.lamp.name, emission: pick(l.photonFluxPerNm, max > 0 ? 1 / max : 0) };
+			// photonFluxPerNm: einstein s⁻¹ nm⁻¹ reaching the vessel, before the wall (for the page's CSV), 6 significant figures
+			const flux: number[] = [];
+			for (let i = 0; i < GRID.count; i += every) flux.push(Number(l.photonFluxPerNm[i].toPrecision(6)));
+			return { id: l.lamp.id, name: l.lamp.name, emission: pick(l.photonFluxPerNm, max > 0 ? 1 / max : 0), photonFluxPerNm: flux };
 		})
 	};
 }

@@ -22,7 +22,13 @@ describe('Window finder inputs in the URL', () => {
 			rankWalls: [{ materialId: 2, thicknessMm: 2 }],
 			rankSolventIds: [6, 8],
 			flow: { reactorVolumeMl: 5, flowRateMlPerMin: 0.5 },
-			tripletMarginKJPerMol: 15
+			tripletMarginKJPerMol: 15,
+			reactionType: 'photocatalytic' as const,
+			photocatalyst: { spectrumId: 12, concentrationM: 0.002 },
+			quantumYieldBack: 0.2,
+			vesselShape: 'annulus' as const,
+			innerDiameterCm: 3,
+			outerDiameterCm: 5
 		};
 		const back = inputsFromQuery(new URLSearchParams(inputsToQuery(i).toString()), defaultInputs(th));
 		expect(back).toEqual(i);
@@ -35,5 +41,18 @@ describe('Window finder inputs in the URL', () => {
 		expect(requestBody(i)).toBeNull();
 		const body = requestBody({ ...i, substrateId: 1, solventId: 2, materialId: 3, volumeMl: 10 });
 		expect(body).toMatchObject({ substrate: { spectrumId: 1, concentrationM: 0.05 }, volumeL: 0.01, lamps: [2] });
+	});
+	it('sends reaction mode and vessel as API.md says (pathCm = diameter or annular gap)', () => {
+		const i = { ...defaultInputs(th), substrateId: 1, solventId: 2, materialId: 3 };
+		expect(requestBody({ ...i, reactionType: 'photocatalytic', photocatalyst: { spectrumId: 7, concentrationM: 0.001 } })).toMatchObject({
+			reaction: { type: 'photocatalytic', photocatalyst: { spectrumId: 7, concentrationM: 0.001 } }
+		});
+		const rev = requestBody({ ...i, reactionType: 'reversible', productId: 9, quantumYieldBack: 0.4 })!;
+		expect(rev.reaction).toEqual({ type: 'reversible', product: { spectrumId: 9 }, quantumYieldBack: 0.4 });
+		expect(rev.product).toBeUndefined();
+		expect(requestBody({ ...i, reactionType: 'reversible' })).toBeNull();
+		expect(requestBody({ ...i, vesselShape: 'cylinder', innerDiameterCm: 4 })).toMatchObject({ vessel: { shape: 'cylinder', innerDiameterCm: 4 }, pathCm: 4 });
+		expect(requestBody({ ...i, vesselShape: 'annulus', innerDiameterCm: 3, outerDiameterCm: 5 })).toMatchObject({ vessel: { shape: 'annulus', innerDiameterCm: 3, outerDiameterCm: 5 }, pathCm: 1 });
+		expect(requestBody(i)!.vessel).toBeUndefined();
 	});
 });

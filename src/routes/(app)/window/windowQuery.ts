@@ -21,7 +21,20 @@ export interface WindowInputs {
 	rankSolventIds: number[];
 	flow: { reactorVolumeMl: number; flowRateMlPerMin: number } | null;
 	tripletMarginKJPerMol: number;
+	/** Which species should absorb (API.md "Reaction modes"): the substrate, a photocatalyst, or a reversible pair. */
+	reactionType: ReactionType;
+	photocatalyst: { spectrumId: number; concentrationM: number } | null;
+	/** Φ of the back reaction (product → substrate), reversible mode. */
+	quantumYieldBack: number | null;
+	vesselShape: VesselShape;
+	innerDiameterCm: number | null;
+	outerDiameterCm: number | null;
 }
+
+export type ReactionType = 'direct' | 'photocatalytic' | 'reversible';
+export type VesselShape = 'slab' | 'cylinder' | 'annulus';
+const REACTIONS: ReactionType[] = ['direct', 'photocatalytic', 'reversible'];
+const SHAPES: VesselShape[] = ['slab', 'cylinder', 'annulus'];
 
 /** Defaults shown in the form (thresholds as in src/lib/irradiation/window.ts). */
 export function defaultInputs(thresholds: WindowInputs['thresholds']): WindowInputs {
@@ -42,7 +55,13 @@ export function defaultInputs(thresholds: WindowInputs['thresholds']): WindowInp
 		rankWalls: [],
 		rankSolventIds: [],
 		flow: null,
-		tripletMarginKJPerMol: 10
+		tripletMarginKJPerMol: 10,
+		reactionType: 'direct',
+		photocatalyst: null,
+		quantumYieldBack: null,
+		vesselShape: 'slab',
+		innerDiameterCm: null,
+		outerDiameterCm: null
 	};
 }
 
@@ -84,6 +103,15 @@ export function inputsFromQuery(q: URLSearchParams, defaults: WindowInputs): Win
 	const fl = (q.get('flow') ?? '').split(',').map(num);
 	out.flow = fl.length === 2 && fl[0] && fl[1] ? { reactorVolumeMl: fl[0], flowRateMlPerMin: fl[1] } : null;
 	out.tripletMarginKJPerMol = num(q.get('margin')) ?? out.tripletMarginKJPerMol;
+	const mode = q.get('mode') as ReactionType | null;
+	if (mode && REACTIONS.includes(mode)) out.reactionType = mode;
+	const [pcId, pcC] = (q.get('pc') ?? '').split(':').map(num);
+	if (pcId && Number.isInteger(pcId) && pcId > 0) out.photocatalyst = { spectrumId: pcId, concentrationM: pcC ?? 0.001 };
+	out.quantumYieldBack = num(q.get('phib'));
+	const shape = q.get('vs') as VesselShape | null;
+	if (shape && SHAPES.includes(shape)) out.vesselShape = shape;
+	out.innerDiameterCm = num(q.get('di'));
+	out.outerDiameterCm = num(q.get('do'));
 	return out;
 }
 
@@ -109,19 +137,55 @@ export function inputsToQuery(i: WindowInputs): URLSearchParams {
 	if (i.rankSolventIds.length) put('rs', i.rankSolventIds.join(','));
 	if (i.flow) put('flow', `${i.flow.reactorVolumeMl},${i.flow.flowRateMlPerMin}`);
 	if (i.tripletMarginKJPerMol !== 10) put('margin', i.tripletMarginKJPerMol);
+	if (i.reactionType !== 'direct') put('mode', i.reactionType);
+	if (i.photocatalyst) put('pc', `${i.photocatalyst.spectrumId}:${i.photocatalyst.concentrationM}`);
+	put('phib', i.quantumYieldBack);
+	if (i.vesselShape !== 'slab') put('vs', i.vesselShape);
+	put('di', i.innerDiameterCm);
+	put('do', i.outerDiameterCm);
 	return q;
 }
 
-/** The POST /api/window body for these inputs, or null while a required input is missing. */
+/** The optical depth sent as `pathCm`: the slab depth, the tube's inner diameter, or the annular gap. */
+export function opticalDepthCm(i: WindowInputs): number | null {
+	if (i.vesselShape === 'cylinder') return i.innerDiameterCm;
+	if (i.vesselShape === 'annulus') return i.innerDiameterCm !== null && i.outerDiameterCm !== null ? (i.outerDiameterCm - i.innerDiameterCm) / 2 : null;
+	return i.pathCm;
+}
+
+function reactionFields(i: WindowInputs): Record<string, unknown> {
+	if (i.reactionType === 'photocatalytic' && i.photocatalyst)
+		return { reaction: { type: 'photocatalytic', photocatalyst: { spectrumId: i.photocatalyst.spectrumId, concentrationM: i.photocatalyst.concentrationM } } };
+	if (i.reactionType === 'reversible' && i.productId)
+		return { reaction: { type: 'reversible', product: { spectrumId: i.productId }, ...(i.quantumYieldBack !== null ? { quantumYieldBack: i.quantumYieldBack } : {}) } };
+	return {};
+}
+
+function vesselFields(i: WindowInputs): Record<string, unknown> {
+	if (i.vesselShape === 'cylinder') return { vessel: { shape: 'cylinder', innerDiameterCm: i.innerDiameterCm } };
+	if (i.vesselShape === 'annulus') return { vessel: { shape: 'annulus', innerDiameterCm: i.innerDiameterCm, outerDiameterCm: i.outerDiameterCm } };
+	return {};
+}
+
+/**
+ * The POST /api/window body for these inputs, or null while a required choice is missing (substrate, solvent, wall;
+ * the photocatalyst in photocatalytic mode, the product in reversible mode). Numbers are sent as typed: the form
+ * checks them first (see windowChecks.ts) and the server names the field of anything it refuses.
+ */
 export function requestBody(i: WindowInputs): Record<string, unknown> | null {
 	if (!i.substrateId || !i.solventId || !i.materialId) return null;
+	if (i.reactionType === 'photocatalytic' && !i.photocatalyst) return null;
+	if (i.reactionType === 'reversible' && !i.productId) return null;
+	const reversible = i.reactionType === 'reversible';
 	return {
 		substrate: { spectrumId: i.substrateId, concentrationM: i.concentrationM },
 		...(i.others.length ? { others: i.others } : {}),
-		...(i.productId ? { product: { spectrumId: i.productId } } : {}),
+		...(i.productId && !reversible ? { product: { spectrumId: i.productId } } : {}),
+		...reactionFields(i),
+		...vesselFields(i),
 		solvent: { id: i.solventId },
 		wall: { materialId: i.materialId, thicknessMm: i.thicknessMm },
-		pathCm: i.pathCm,
+		pathCm: opticalDepthCm(i),
 		...(i.lampIds.length ? { lamps: i.lampIds } : {}),
 		...(i.quantumYield !== null ? { quantumYield: i.quantumYield } : {}),
 		...(i.amountMol !== null ? { amountMol: i.amountMol } : {}),
