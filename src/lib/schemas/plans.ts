@@ -13,7 +13,8 @@ export const planDecisionSchema = z.object({
 	lampId: id,
 	wall: z.object({ materialId: id, thicknessMm: number }),
 	solventId: id,
-	pathCm: number,
+	/** Slab depth; null for round vessels (their geometry is in the inputs' `vessel`). */
+	pathCm: number.nullable().optional(),
 	irradiationTimeS: number.nullable().optional(),
 	safetyMeasures: z.string().trim().max(4000, 'safetyMeasures must be at most 4000 characters').nullable().optional(),
 	temperatureC: number.nullable().optional(),

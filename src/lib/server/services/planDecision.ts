@@ -38,7 +38,7 @@ export async function completeDecision(partial: Partial<PlanDecision> | undefine
 		lampId: partial?.lampId ?? previous?.lampId ?? bestLampId ?? undefined,
 		wall: partial?.wall ?? previous?.wall ?? { materialId: wall.materialId, thicknessMm: wall.thicknessMm },
 		solventId: partial?.solventId ?? previous?.solventId ?? obj(inputs.solvent).id,
-		pathCm: partial?.pathCm ?? previous?.pathCm ?? inputs.pathCm,
+		pathCm: partial?.pathCm ?? previous?.pathCm ?? inputs.pathCm ?? null,
 		irradiationTimeS: partial && 'irradiationTimeS' in partial ? partial.irradiationTimeS : previous?.irradiationTimeS,
 		safetyMeasures: partial && 'safetyMeasures' in partial ? partial.safetyMeasures : previous?.safetyMeasures,
 		temperatureC: partial && 'temperatureC' in partial ? partial.temperatureC : previous?.temperatureC,
@@ -50,8 +50,10 @@ export async function completeDecision(partial: Partial<PlanDecision> | undefine
 		throw new ApiError(400, e.code, `decision.${e.message}`, { ...e.extra, field: e.extra.field ? `decision.${e.extra.field}` : 'decision' });
 	}
 	const d = parsed.data;
-	if (d.pathCm <= 0) throw invalid('decision.pathCm', 'the optical path must be above 0 cm');
-	if (d.pathCm > 100) throw invalid('decision.pathCm', 'an optical path above 100 cm is not a vessel');
+	const vesselShape = String(obj(inputs.vessel).shape ?? 'slab');
+	if (d.pathCm == null && vesselShape === 'slab') throw invalid('decision.pathCm', 'a flat vessel needs its optical path in cm');
+	if (d.pathCm != null && d.pathCm <= 0) throw invalid('decision.pathCm', 'the optical path must be above 0 cm');
+	if (d.pathCm != null && d.pathCm > 100) throw invalid('decision.pathCm', 'an optical path above 100 cm is not a vessel');
 	if (d.wall.thicknessMm <= 0) throw invalid('decision.wall.thicknessMm', 'the wall thickness must be above 0 mm');
 	if (d.wall.thicknessMm > 100) throw invalid('decision.wall.thicknessMm', 'the wall thickness must be at most 100 mm');
 	if (d.irradiationTimeS != null && d.irradiationTimeS <= 0) throw invalid('decision.irradiationTimeS', 'the irradiation time must be above 0 s');
@@ -62,12 +64,12 @@ export async function completeDecision(partial: Partial<PlanDecision> | undefine
 	if (!lamp || lamp.groupId !== groupId) throw invalid('decision.lampId', `no lamp with id ${d.lampId} in the plan's group`);
 	if (!(await getSolvent(d.solventId))) throw invalid('decision.solventId', `no solvent with id ${d.solventId}`);
 	if (!(await getWallMaterial(d.wall.materialId, [groupId]))) throw invalid('decision.wall.materialId', `no wall material with id ${d.wall.materialId}`);
-	return { ...d, irradiationTimeS: d.irradiationTimeS ?? null, safetyMeasures: d.safetyMeasures || null, temperatureC: d.temperatureC ?? null, notes: d.notes || null };
+	return { ...d, pathCm: d.pathCm ?? null, irradiationTimeS: d.irradiationTimeS ?? null, safetyMeasures: d.safetyMeasures || null, temperatureC: d.temperatureC ?? null, notes: d.notes || null };
 }
 
 /** The inputs with the decided wall, solvent and path, and the chosen lamp among the compared lamps. */
 export function applyDecision(inputs: Inputs, d: PlanDecision): Inputs {
-	const out: Inputs = { ...inputs, wall: { ...obj(inputs.wall), materialId: d.wall.materialId, thicknessMm: d.wall.thicknessMm }, solvent: { id: d.solventId }, pathCm: d.pathCm };
+	const out: Inputs = { ...inputs, wall: { ...obj(inputs.wall), materialId: d.wall.materialId, thicknessMm: d.wall.thicknessMm }, solvent: { id: d.solventId }, ...(d.pathCm != null ? { pathCm: d.pathCm } : {}) };
 	if (Array.isArray(inputs.lamps) && inputs.lamps.length && !inputs.lamps.includes(d.lampId)) out.lamps = [...inputs.lamps, d.lampId];
 	return out;
 }
