@@ -27,14 +27,16 @@ test.describe('POST /api/window reaction modes (API, as a chemist)', () => {
 		const k = await ids(request);
 		const aryl = await k.find('Calder', 'Calder aryl bromide');
 		const blue = await k.find('Tidewater', 'Tidewater Blue (TWB-7)');
-		const base = { substrate: { spectrumId: aryl, concentrationM: 0.1 }, solvent: { id: k.acetonitrile }, wall: { materialId: k.boro, thicknessMm: 2 }, pathCm: 1, quantumYield: 0.5, volumeL: 0.005 };
+		// with a dihydropyridine reductant (absorbs up to ≈ 400 nm), as a photoredox run is set up (invented demo spectra)
+		const reductant = await k.find('Tarrow', 'Tarrow dihydropyridine');
+		const base = { substrate: { spectrumId: aryl, concentrationM: 0.05 }, others: [{ spectrumId: reductant, concentrationM: 0.1 }], solvent: { id: k.acetonitrile }, wall: { materialId: k.boro, thicknessMm: 2 }, pathCm: 1, quantumYield: 0.5, volumeL: 0.005 };
 		const pc = await (await request.post('/api/window', { data: { ...base, reaction: { type: 'photocatalytic', photocatalyst: { spectrumId: blue, concentrationM: 0.001 } } } })).json();
 		expect(pc.lamps[0].name).toMatch(/450/);
 		expect(pc.lamps[0].absorbedByIntendedEinsteinPerS).toBeGreaterThan(0);
 		expect(pc.wallTransmissionAtBandMaximum.wavelengthNm).toBeGreaterThan(440);
 		expect(pc.explanation[0]).toMatch(/^At its band maximum \(\d+(\.5)? nm\) the wall passes \d+ %/);
 		// the old way (catalyst as a competitor in direct mode) does not put the blue LED first
-		const old = await (await request.post('/api/window', { data: { ...base, others: [{ spectrumId: blue, concentrationM: 0.001 }] } })).json();
+		const old = await (await request.post('/api/window', { data: { ...base, others: [...base.others, { spectrumId: blue, concentrationM: 0.001 }] } })).json();
 		expect(old.lamps[0].name).not.toMatch(/450/);
 
 		const e = await k.find('Dunmore', 'Dunmore cinnamate');

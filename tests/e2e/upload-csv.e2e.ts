@@ -22,7 +22,7 @@ const multi = () => {
 	const rows = wl.map((nm) => [nm, (1e7 / nm).toFixed(3), ...[1, 2, 4, 8].map((f) => (0.05 * f * band(nm, 450, 35) + 0.003).toFixed(4)), (90 - 80 * band(nm, 320, 15)).toFixed(2), '2.5e-5'].join(','));
 	return { name: `dye-dilution-${run}.csv`, mimeType: 'text/csv', buffer: Buffer.from([`Sample: invented dye D-7, run ${run}`, head.join(','), ...rows].join('\n')) };
 };
-const nk = () => ({ name: `glass-nk-${run}.csv`, mimeType: 'text/csv', buffer: readFileSync(path.resolve(process.cwd(), '../../shared/external/csv-variety/optical-constants-n-k-not-a-spectrum.csv')) });
+const nk = () => ({ name: `glass-nk-${run}.csv`, mimeType: 'text/csv', buffer: readFileSync(path.resolve(process.cwd(), '../shared/external/csv-variety/optical-constants-n-k-not-a-spectrum.csv')) });
 
 test('kinetics per row, column selection, re-read keeps typed metadata, n, k refused; 1366 and 390 px', async ({ page }) => {
 	await signInAs(page, 'member');

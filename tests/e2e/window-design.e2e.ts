@@ -62,7 +62,7 @@ test.describe('Window finder design', () => {
 		const ctx = await browser.newContext({ javaScriptEnabled: false, storageState: await page.context().storageState() });
 		const noJs = await ctx.newPage();
 		await noJs.goto(link);
-		await expect(noJs.getByTestId('windows')).toContainText(/\d+–\d+ nm/);
+		await expect(noJs.getByTestId('windows')).toContainText(/\d+(\.\d+)?–\d+(\.\d+)? nm/);
 		await expect(noJs.getByTestId('band-max')).toContainText(/At its band maximum \(\d+ nm\) the wall passes \d+ %/);
 		await ctx.close();
 	});

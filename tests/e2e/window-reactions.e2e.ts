@@ -28,7 +28,7 @@ test.describe('Window finder, reaction modes', () => {
 		// choose the mode and the photocatalyst on the page, as a chemist does
 		await page.getByLabel('A photocatalyst or sensitiser').check();
 		await page.getByTestId('photocatalyst-picker').fill('tidewater');
-		await page.getByRole('option', { name: /Tidewater Blue/ }).click();
+		await page.getByRole('option', { name: /^Tidewater Blue \(TWB-7\)/ }).click();
 		await page.getByLabel('Photocatalyst concentration (mol L⁻¹)').fill('0.002');
 		await expect(page.getByTestId('answer')).toHaveAttribute('data-stale', 'false');
 		// common practice: a photocatalyst absorbing at 452 nm is driven best by a blue 450 nm LED, which emits only where

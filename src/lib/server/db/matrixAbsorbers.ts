@@ -1,7 +1,7 @@
 /** Repository: the absorption spectra a group's lamp × absorber matrix compares (points only, no file BLOBs). */
 import type { Knex } from 'knex';
 import { db } from './index';
-import type { Reader, SpectrumRow } from './spectra';
+import { sideDataOf, type Reader, type SpectrumRow } from './spectra';
 
 export type AbsorberCurveRow = Pick<SpectrumRow, 'id' | 'name' | 'part' | 'kind' | 'y_unit' | 'concentration_m' | 'path_cm' | 'x_nm' | 'y_normalised' | 'lambda_max_nm' | 'visibility' | 'owner_id' | 'group_id'>;
 
@@ -17,9 +17,12 @@ export async function listGroupAbsorberCurves(groupId: number, reader: Reader, k
 		.whereNull('s.deleted_at')
 		.orderBy('s.part', 'desc')
 		.orderBy('s.name')
-		.select('s.id', 's.name', 's.part', 's.kind', 's.y_unit', 's.concentration_m', 's.path_cm', 's.x_nm', 's.y_normalised', 's.lambda_max_nm', 's.visibility', 's.owner_id', 's.group_id');
+		.select('s.id', 's.name', 's.part', 's.kind', 's.y_unit', 's.concentration_m', 's.path_cm', 's.lambda_max_nm', 's.visibility', 's.owner_id', 's.group_id');
 	if (!reader.isAdmin) q.where((w) => w.whereIn('s.visibility', ['group', 'public']).orWhere('s.owner_id', reader.userId));
-	return q;
+	const rows: Omit<AbsorberCurveRow, 'x_nm' | 'y_normalised'>[] = await q;
+	// the normalised points live in spectrum_points (db/spectra.ts)
+	const side = await sideDataOf(rows.map((r) => Number(r.id)), k, { points: true, vector: false });
+	return rows.map((r) => ({ ...r, x_nm: side.get(Number(r.id))?.x_nm ?? Buffer.alloc(0), y_normalised: side.get(Number(r.id))?.y_normalised ?? Buffer.alloc(0) }));
 }
 
 /** How often each solvent name appears on the group's absorption spectra (for the matrix defaults). */

@@ -287,7 +287,7 @@ export async function findSpectraBySha(trx: Knex | Knex.Transaction, groupId: nu
 }
 
 /** Points and vectors of some spectra, assembled per id. */
-async function sideDataOf(ids: number[], conn: Knex | Knex.Transaction, what: { points: boolean; vector: boolean }) {
+export async function sideDataOf(ids: number[], conn: Knex | Knex.Transaction, what: { points: boolean; vector: boolean }) {
 	const out = new Map<number, Partial<Record<PointSeries | 'search_vector', Buffer>>>();
 	for (const id of ids) out.set(id, {});
 	if (!ids.length) return out;

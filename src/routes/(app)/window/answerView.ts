@@ -67,8 +67,9 @@ export function budgetOf(l: LampAnswer, intendedName: string): BudgetSegment[] {
 	];
 }
 
-export type LampSort = 'intended' | 'selectivity' | 'time' | 'wall' | 'name';
+export type LampSort = 'rank' | 'intended' | 'selectivity' | 'time' | 'wall' | 'name';
 export const LAMP_SORTS: { key: LampSort; label: string }[] = [
+	{ key: 'rank', label: 'ranking (photons to the absorber × selectivity)' },
 	{ key: 'intended', label: 'photons to the absorber' },
 	{ key: 'selectivity', label: 'selectivity' },
 	{ key: 'time', label: 'time to 90 %' },
@@ -76,11 +77,12 @@ export const LAMP_SORTS: { key: LampSort; label: string }[] = [
 	{ key: 'name', label: 'name' }
 ];
 
-/** Lamps in the chosen order; the server's rank (1 = most photons to the intended absorber) is kept beside each. */
+/** Lamps in the chosen order; the server's rank (1 = first in the ranking) is kept beside each; 'rank' keeps that order. */
 export function sortLamps(lamps: LampAnswer[], key: LampSort): { lamp: LampAnswer; rank: number }[] {
 	const ranked = lamps.map((lamp, i) => ({ lamp, rank: i + 1 }));
 	const time = (l: LampAnswer) => l.timeTo90PctOfStationaryS ?? l.timeTo90PctS ?? Infinity;
 	const by: Record<LampSort, (a: LampAnswer, b: LampAnswer) => number> = {
+		rank: () => 0,
 		intended: (a, b) => intendedFlux(b) - intendedFlux(a),
 		selectivity: (a, b) => b.selectivity - a.selectivity,
 		time: (a, b) => time(a) - time(b),
