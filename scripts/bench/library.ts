@@ -29,6 +29,7 @@ import { copyFloat32Into } from '../../src/lib/server/db/spectraBlobs';
 import { prepareSpectra, type PreparedSpectrum } from '../../src/lib/server/services/spectraPrepare';
 import { sha256Hex, spectrumRowsFor, storeSpectra } from '../../src/lib/server/services/spectraStore';
 import { GRID_FROM_NM, SEARCH_LENGTH } from '../../src/lib/spectra/grid';
+import { prng } from '../../src/lib/prng';
 
 const N = Number(process.env.BENCH_N ?? 100_000);
 const BENCH_DB = process.env.BENCH_DB ?? 'windowsill_test_scale_bench';
@@ -51,16 +52,7 @@ const CORE = ['thioxanthone', 'benzophenone', 'acridinium', 'carbazole', 'phenox
 const TAIL = ['ester', 'amide', 'salt', 'dimer', 'ligand', 'complex', 'catalyst', 'adduct', 'precursor', 'isomer'];
 const PARTS = ['substrate', 'substrate', 'substrate', 'photocatalyst', 'photocatalyst', 'product', 'additive'] as const;
 
-function rng(seed: number) {
-	let s = seed >>> 0;
-	return () => {
-		s = (s + 0x6d2b79f5) >>> 0;
-		let t = s;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
+const rng = prng; // mulberry32 (src/lib/prng.ts)
 const nameOf = (i: number) => `${SUBST[i % SUBST.length]}-${CORE[Math.floor(i / SUBST.length) % CORE.length]} ${TAIL[Math.floor(i / (SUBST.length * CORE.length)) % TAIL.length]} ${1000 + i}`;
 
 // ---------- templates through the real pipeline ----------

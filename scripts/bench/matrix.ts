@@ -11,6 +11,7 @@
 import { photonFluxEinsteinPerS } from '../../src/lib/irradiation/constants';
 import { computeAbsorberMatrix } from '../../src/lib/irradiation/absorberMatrix';
 import { COMPUTATION_GRID, gridWavelengths } from '../../src/lib/irradiation/wavelengthGrid';
+import { prng } from '../../src/lib/prng';
 
 const LAMPS = Number(process.env.BENCH_LAMPS ?? 50);
 const ABSORBERS = Number(process.env.BENCH_ABSORBERS ?? 500);
@@ -20,14 +21,7 @@ const n = grid.count;
 const PATH_CM = 1, CONC_M = 0.01;
 
 // Deterministic pseudo-random numbers (mulberry32) so every run builds the same case.
-let seed = 20261203;
-const rnd = () => {
-	seed |= 0;
-	seed = (seed + 0x6d2b79f5) | 0;
-	let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-	t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-	return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-};
+const rnd = prng(20261203);
 const gauss = (p: number, f: number, h: number, out = new Float64Array(n)) => {
 	for (let i = 0; i < n; i++) out[i] += h * Math.exp((-4 * Math.LN2 * (wl[i] - p) ** 2) / (f * f));
 	return out;

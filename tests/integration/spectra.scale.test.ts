@@ -20,6 +20,7 @@ import { stopSimilarityWorker, topKInProcess, topKInWorker } from '../../src/lib
 import { cosineSimilarity, rankSimilar } from '../../src/lib/spectra/similarity';
 import { bufferToVector, SEARCH_LENGTH } from '../../src/lib/spectra/grid';
 import { apiFailure, csvOf, gauss, localsOf, resetSpectraWorld, upload } from './spectraTestKit';
+import { prng } from '../../src/lib/prng';
 
 const ids: Record<string, number> = {};
 beforeAll(async () => {
@@ -39,17 +40,8 @@ afterAll(async () => {
 
 const member2 = (params: Record<string, string>) => searchSpectra(localsOf('member2'), spectrumListQuerySchema.parse({ group: 'spx-a', limit: '100', ...params }));
 
-/** Deterministic pseudo-random numbers (mulberry32). */
-function rng(seed: number) {
-	let s = seed >>> 0;
-	return () => {
-		s = (s + 0x6d2b79f5) >>> 0;
-		let t = s;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
+/** Deterministic pseudo-random numbers (mulberry32, src/lib/prng.ts). */
+const rng = prng;
 
 function randomVectors(n: number, seed: number): Float32Array[] {
 	const r = rng(seed);

@@ -91,3 +91,18 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 		return { yUnit: 'relative', kind: 'emission' };
 	return undefined;
 }
+
+/** Kind that goes with a stored y unit. */
+export const KIND_OF_Y: Record<YUnit, SpectrumKind> = {
+	absorbance: 'absorption',
+	epsilon: 'absorption',
+	'log-epsilon': 'absorption',
+	transmittance: 'transmission',
+	'transmittance-percent': 'transmission',
+	reflectance: 'reflectance',
+	'reflectance-percent': 'reflectance',
+	relative: 'emission',
+	'W/nm': 'emission',
+	'W/m2/nm': 'emission',
+	counts: 'emission'
+};

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { COMPUTATION_GRID, gridWavelengths } from '../wavelengthGrid';
 import { rk45 } from '../reactions/testSolvers';
 import { fitQuantumYieldSeries, timeFromLabel, type SeriesInput } from './seriesFit';
+import { prng } from '../../prng';
 
 const grid = COMPUTATION_GRID;
 const wl = gridWavelengths(grid);
@@ -15,14 +16,7 @@ const l = 1, V = 0.003, c0 = 1.5e-4;
 
 /** Seeded normal noise (mulberry32 + Box–Muller) so a failure replays. */
 function noise(seed: number) {
-	let a = seed >>> 0;
-	const u = () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
+	const u = prng(seed);
 	return () => Math.sqrt(-2 * Math.log(u() + 1e-300)) * Math.cos(2 * Math.PI * u());
 }
 

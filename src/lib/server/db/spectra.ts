@@ -403,27 +403,10 @@ export async function updateSpectrumIfVersion(trx: Knex.Transaction, id: number,
 }
 
 /** What the Library index (services/spectraVectorCache.ts) reads of each spectrum. */
-export interface VectorCacheRow {
-	id: number;
-	group_id: number;
-	owner_id: string | null;
-	name: string;
-	synonyms: string | null;
-	cas: string | null;
-	part: string;
-	kind: string;
-	solvent: string | null;
-	visibility: string;
-	y_unit: string;
-	concentration_m: number | null;
-	path_cm: number | null;
-	lambda_max_nm: number | null;
-	deleted_at: Date | null;
-	created_at: Date;
-	updated_at: Date;
-	change_seq: number;
-	vector: Buffer | null;
-}
+export type VectorCacheRow = Pick<
+	SpectrumRow,
+	'id' | 'group_id' | 'owner_id' | 'name' | 'synonyms' | 'cas' | 'part' | 'kind' | 'solvent' | 'visibility' | 'y_unit' | 'concentration_m' | 'path_cm' | 'lambda_max_nm' | 'deleted_at' | 'created_at' | 'updated_at'
+> & { change_seq: number; vector: Buffer | null };
 
 /** Rows changed after `seq` with id > `afterId`, at most `limit`, by id. */
 export async function vectorRowsChangedSince(seq: number, afterId: number, limit: number, conn: Knex = db()): Promise<VectorCacheRow[]> {

@@ -3,6 +3,7 @@
  * the checklist table, the methods paragraph and the cautions ending with the deferral. Every value is escaped.
  */
 import type { PlanReport } from './planReport';
+import { clippedNote, overlayFrame } from './planReportPlot';
 
 const esc = (s: unknown) => String(s ?? '').replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
@@ -14,15 +15,9 @@ export function overlaySvg(curves: NonNullable<PlanReport['curves']>, width = 72
 	const pad = { l: 46, r: 46, t: 12, b: 34 };
 	const w = width - pad.l - pad.r;
 	const h = height - pad.t - pad.b;
-	// Show 200–800 nm or the stretch where anything is non-zero.
 	const x = curves.x;
-	let lo = x.length - 1, hi = 0;
-	for (const s of curves.series) for (let i = 0; i < x.length; i++) if (s.y[i] > 1e-3) { lo = Math.min(lo, i); hi = Math.max(hi, i); }
-	const from = Math.max(x[0], Math.floor((x[Math.max(0, lo)] - 20) / 50) * 50, 200);
-	const to = Math.min(x[x.length - 1], Math.ceil((x[Math.min(x.length - 1, hi)] + 20) / 50) * 50, 900);
-	let aMax = 0;
-	for (const s of curves.series) if (s.kind === 'absorbance') for (let i = 0; i < x.length; i++) if (x[i] >= from && x[i] <= to && s.y[i] > aMax) aMax = s.y[i];
-	aMax = Math.min(3, Math.max(0.1, Math.ceil(aMax * 10) / 10));
+	const frame = overlayFrame(curves);
+	const { from, to, aMax } = frame;
 	const px = (v: number) => pad.l + ((v - from) / (to - from)) * w;
 	const pyA = (v: number) => pad.t + h - (Math.min(v, aMax) / aMax) * h;
 	const py1 = (v: number) => pad.t + h - Math.max(0, Math.min(1, v)) * h;
@@ -35,9 +30,9 @@ export function overlaySvg(curves: NonNullable<PlanReport['curves']>, width = 72
 		return { colour, name: s.name, svg: `<polyline fill="none" stroke="${colour}" stroke-width="1.6"${dash} points="${pts.join(' ')}"/>` };
 	});
 	const ticks: string[] = [];
-	for (let v = Math.ceil(from / 50) * 50; v <= to; v += 50) ticks.push(`<line x1="${px(v)}" x2="${px(v)}" y1="${pad.t + h}" y2="${pad.t + h + 4}" stroke="#667ba4"/><text x="${px(v)}" y="${pad.t + h + 16}" text-anchor="middle">${v}</text>`);
+	for (const v of frame.nmTicks) ticks.push(`<line x1="${px(v)}" x2="${px(v)}" y1="${pad.t + h}" y2="${pad.t + h + 4}" stroke="#667ba4"/><text x="${px(v)}" y="${pad.t + h + 16}" text-anchor="middle">${v}</text>`);
 	for (let i = 0; i <= 4; i++) {
-		const a = (aMax * i) / 4;
+		const a = frame.aTicks[i];
 		ticks.push(`<text x="${pad.l - 6}" y="${pyA(a) + 4}" text-anchor="end">${Number(a.toFixed(2))}</text><text x="${pad.l + w + 6}" y="${py1(i / 4) + 4}">${i / 4}</text>`);
 	}
 	const legend = paths.map((p) => `<span class="key"><i style="background:${p.colour}"></i>${esc(p.name)}</span>`).join('');
@@ -46,7 +41,7 @@ export function overlaySvg(curves: NonNullable<PlanReport['curves']>, width = 72
 <text x="${pad.l + w / 2}" y="${height - 4}" text-anchor="middle">wavelength / nm</text>
 <text transform="translate(12 ${pad.t + h / 2}) rotate(-90)" text-anchor="middle">absorbance over the path</text>
 <text transform="translate(${width - 8} ${pad.t + h / 2}) rotate(90)" text-anchor="middle">transmission, relative emission</text></svg>
-<figcaption>${legend}</figcaption></figure>`;
+<figcaption>${legend}${frame.clipped ? `<span class="note">${esc(clippedNote(frame))}</span>` : ''}</figcaption></figure>`;
 }
 
 const CSS = `
@@ -62,7 +57,7 @@ th{width:36%;font-weight:600;color:#2e3b56}td.missing{color:#8f2f1c;font-style:i
 .caution.warning{border-color:#e9a23b;background:#fdf6e7}.caution p{margin:.15rem 0}.src{color:#4c5f87;font-size:12px}
 .deferral{border:2px solid #1b2436;padding:.6rem .8rem;margin-top:.8rem;font-weight:600}
 figure.overlay{margin:.5rem 0}figure svg{width:100%;height:auto;font-size:11px;fill:#2e3b56}
-figcaption{display:flex;flex-wrap:wrap;gap:.3rem 1rem;font-size:12px}.key i{display:inline-block;width:14px;height:3px;margin-right:5px;vertical-align:middle}
+figcaption{display:flex;flex-wrap:wrap;gap:.3rem 1rem;font-size:12px}figcaption .note{flex-basis:100%;color:#3b4b6c}.key i{display:inline-block;width:14px;height:3px;margin-right:5px;vertical-align:middle}
 .tools{display:flex;gap:1rem;margin-bottom:.6rem;font-size:13px}.note{color:#4c5f87;font-size:12px}
 @media (max-width:600px){th{width:42%}main{padding:1rem .7rem}}
 @media print{body{background:#fff}main{max-width:none;padding:0}.tools{display:none}h2{break-after:avoid}tr,.caution,.deferral,figure{break-inside:avoid}a{color:inherit;text-decoration:none}

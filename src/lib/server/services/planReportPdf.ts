@@ -6,6 +6,7 @@ import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { PlanReport } from './planReport';
 import { SERIES_COLOURS } from './planReportHtml';
+import { clippedNote, overlayFrame } from './planReportPlot';
 
 const require = createRequire(import.meta.url);
 const FONT = require.resolve('dejavu-fonts-ttf/ttf/DejaVuSans.ttf');
@@ -89,21 +90,16 @@ function drawOverlay(doc: PDFKit.PDFDocument, curves: NonNullable<PlanReport['cu
 	const top = doc.y + 4;
 	const pl = left + 34, pw = width - 68, ph = height - 26;
 	const x = curves.x;
-	let lo = x.length - 1, hi = 0;
-	for (const s of curves.series) for (let i = 0; i < x.length; i++) if (s.y[i] > 1e-3) { lo = Math.min(lo, i); hi = Math.max(hi, i); }
-	const from = Math.max(x[0], Math.floor((x[Math.max(0, lo)] - 20) / 50) * 50, 200);
-	const to = Math.min(x[x.length - 1], Math.ceil((x[Math.min(x.length - 1, hi)] + 20) / 50) * 50, 900);
-	let aMax = 0;
-	for (const s of curves.series) if (s.kind === 'absorbance') for (let i = 0; i < x.length; i++) if (x[i] >= from && x[i] <= to && s.y[i] > aMax) aMax = s.y[i];
-	aMax = Math.min(3, Math.max(0.1, Math.ceil(aMax * 10) / 10));
+	const frame = overlayFrame(curves);
+	const { from, to, aMax } = frame;
 	const px = (v: number) => pl + ((v - from) / (to - from)) * pw;
 	const pyA = (v: number) => top + ph - (Math.min(v, aMax) / aMax) * ph;
 	const py1 = (v: number) => top + ph - Math.max(0, Math.min(1, v)) * ph;
 	doc.rect(pl, top, pw, ph).lineWidth(0.6).strokeColor('#b3bfd4').stroke();
 	doc.font('body').fontSize(7).fillColor(MUTED);
-	for (let v = Math.ceil(from / 50) * 50; v <= to; v += 50) doc.text(String(v), px(v) - 12, top + ph + 3, { width: 24, align: 'center', lineBreak: false });
+	for (const v of frame.nmTicks) doc.text(String(v), px(v) - 12, top + ph + 3, { width: 24, align: 'center', lineBreak: false });
 	for (let i = 0; i <= 4; i++) {
-		doc.text(String(Number(((aMax * i) / 4).toFixed(2))), pl - 30, pyA((aMax * i) / 4) - 3, { width: 26, align: 'right', lineBreak: false });
+		doc.text(String(Number(frame.aTicks[i].toFixed(2))), pl - 30, pyA(frame.aTicks[i]) - 3, { width: 26, align: 'right', lineBreak: false });
 		doc.text(String(i / 4), pl + pw + 4, py1(i / 4) - 3, { width: 26, lineBreak: false });
 	}
 	doc.text('wavelength / nm', pl, top + ph + 13, { width: pw, align: 'center', lineBreak: false });
@@ -138,5 +134,9 @@ function drawOverlay(doc: PDFKit.PDFDocument, curves: NonNullable<PlanReport['cu
 		lx += w;
 	}
 	doc.y += 16;
+	if (frame.clipped) {
+		doc.font('body').fontSize(7.5).fillColor(MUTED).text(clippedNote(frame), left, doc.y, { width });
+		doc.moveDown(0.5);
+	}
 	doc.x = left;
 }

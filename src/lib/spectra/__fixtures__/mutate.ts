@@ -4,17 +4,7 @@
  * truncation, binary signatures and NULs. Deterministic for a given seed (mulberry32 PRNG, public domain).
  */
 
-/** mulberry32: a small 32-bit PRNG (Tommy Ettinger, public domain); returns floats in [0, 1). */
-export function prng(seed: number): () => number {
-	let a = seed >>> 0;
-	return () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
+export { prng } from '../../prng';
 
 const enc = new TextEncoder();
 const SNIPPETS = [

@@ -154,17 +154,5 @@ export function yUnitOfHeader(label: string | undefined): (HeaderYUnit & { refle
 	return g ? { ...g, scale: 1 } : undefined;
 }
 
-/** Kind that goes with a stored y unit. */
-export const KIND_OF_Y: Record<YUnit, SpectrumKind> = {
-	absorbance: 'absorption',
-	epsilon: 'absorption',
-	'log-epsilon': 'absorption',
-	transmittance: 'transmission',
-	'transmittance-percent': 'transmission',
-	reflectance: 'reflectance',
-	'reflectance-percent': 'reflectance',
-	relative: 'emission',
-	'W/nm': 'emission',
-	'W/m2/nm': 'emission',
-	counts: 'emission'
-};
+/** Kind that goes with a stored y unit (one table for every reader: ../units.ts). */
+export { KIND_OF_Y } from '../units';

@@ -3,7 +3,7 @@
  * over guesses, and every guess is reported as a warning.
  */
 import type { ParseIssue, SpectrumKind, XUnit, YUnit } from '../types';
-import type { YUnitGuess } from '../units';
+import { KIND_OF_Y, type YUnitGuess } from '../units';
 import { checkXUnit } from './xUnitCheck';
 import { transmittanceLooksPercent } from './validate';
 
@@ -14,19 +14,6 @@ export interface ReadOptions {
 	yUnit?: YUnit;
 }
 
-const KIND_OF: Record<YUnit, SpectrumKind> = {
-	absorbance: 'absorption',
-	epsilon: 'absorption',
-	'log-epsilon': 'absorption',
-	transmittance: 'transmission',
-	'transmittance-percent': 'transmission',
-	reflectance: 'reflectance',
-	'reflectance-percent': 'reflectance',
-	relative: 'emission',
-	'W/nm': 'emission',
-	'W/m2/nm': 'emission',
-	counts: 'emission'
-};
 
 const DEFAULT_Y: Record<SpectrumKind, YUnit> = { absorption: 'absorbance', transmission: 'transmittance', emission: 'relative', reflectance: 'reflectance' };
 
@@ -71,12 +58,12 @@ export function resolveUnits(
 			warn('y_unit_inferred', `${where.what}: transmittance values up to ${max} read as %T`);
 		}
 	}
-	let kind = options.kind ?? KIND_OF[yUnit];
-	if (options.kind && options.kind !== KIND_OF[yUnit]) {
+	let kind = options.kind ?? KIND_OF_Y[yUnit];
+	if (options.kind && options.kind !== KIND_OF_Y[yUnit]) {
 		// Allowed pairs: %T/T as absorption (converted to A), A as transmission (converted to T).
-		const ok = (options.kind === 'absorption' && KIND_OF[yUnit] === 'transmission') || (options.kind === 'transmission' && yUnit === 'absorbance') || (options.kind === 'emission' && !options.yUnit && !fileY);
+		const ok = (options.kind === 'absorption' && KIND_OF_Y[yUnit] === 'transmission') || (options.kind === 'transmission' && yUnit === 'absorbance') || (options.kind === 'emission' && !options.yUnit && !fileY);
 		if (!ok) warn('kind_unit_mismatch', `${where.what}: kind ${options.kind} with y unit ${yUnit}`);
-		if (options.kind === 'emission' && !options.yUnit && KIND_OF[yUnit] !== 'emission') yUnit = 'relative';
+		if (options.kind === 'emission' && !options.yUnit && KIND_OF_Y[yUnit] !== 'emission') yUnit = 'relative';
 		kind = options.kind;
 	}
 	let xUnit: XUnit;

@@ -8,15 +8,19 @@ import { failureOf, formValues, lampBodyFromForm } from '$lib/server/services/la
 import { lampToApi, patchLamp, visibleLamp } from '$lib/server/services/lampsApi';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ locals, params, url }) => {
-	if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
-	let lamp;
+/** The lamp the caller may see, or the error page with the API's status and message. */
+async function lampOr404(locals: App.Locals, id: string) {
 	try {
-		lamp = await visibleLamp(locals, params.id);
+		return await visibleLamp(locals, id);
 	} catch (e) {
 		if (e instanceof ApiError) error(e.status, e.message);
 		throw e;
 	}
+}
+
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
+	const lamp = await lampOr404(locals, params.id);
 	const api = await lampToApi(lamp, locals);
 	let plot: { x: number[]; power: number[]; flux: number[] } | null = null;
 	let bands: { band: string; fromNm: number; toNm: number; fraction: number }[] = [];
@@ -66,13 +70,7 @@ export const actions: Actions = {
 	interval: async ({ request, locals, params, url }) => {
 		if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname)}`);
 		const form = await request.formData();
-		let lamp;
-		try {
-			lamp = await visibleLamp(locals, params.id);
-		} catch (e) {
-			if (e instanceof ApiError) error(e.status, e.message);
-			throw e;
-		}
+		const lamp = await lampOr404(locals, params.id);
 		if (!(await calibrationRights(locals, lamp)).canSetInterval) return fail(403, { intervalMessage: 'Only a lead of the group sets the calibration interval.', field: 'intervalDays' });
 		const days = Number(String(form.get('intervalDays') ?? '').trim());
 		if (!Number.isInteger(days) || days < 1 || days > 3650) {

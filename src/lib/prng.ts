@@ -1,0 +1,14 @@
+/**
+ * mulberry32: a small seeded 32-bit PRNG (Tommy Ettinger, public domain), returning floats in [0, 1).
+ * One copy for the tests, fuzzers and benchmarks that need reproducible "random" data (a failure replays).
+ */
+export function prng(seed: number): () => number {
+	let a = seed >>> 0;
+	return () => {
+		a = (a + 0x6d2b79f5) >>> 0;
+		let t = a;
+		t = Math.imul(t ^ (t >>> 15), t | 1);
+		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+	};
+}
