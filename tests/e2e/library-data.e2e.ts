@@ -55,6 +55,13 @@ test.describe('spectrum pages', () => {
 			await page.goto(`/library/${enone.id}`);
 			await expect(page.getByTestId('longest-band')).toContainText(/37\d\.\d nm, ε \d\d M⁻¹ cm⁻¹/);
 			await page.screenshot({ path: shot(`spectrum-enone-${width}`), fullPage: width === 1366 });
+			// the Library list and the Window finder's picker show the longest band beside λmax
+			await page.goto('/library?q=Morrow%20enone');
+			const row = page.getByTestId('library-table').locator('tr', { has: page.getByRole('link', { name: 'Morrow enone', exact: true }) });
+			await expect(row.getByTestId('longest-band')).toHaveText(/^37\d\.\d$/);
+			await page.goto('/window');
+			await page.getByTestId('substrate-picker').fill('Morrow enone');
+			await expect(page.getByRole('option', { name: /Morrow enone/ }).first()).toContainText(/λmax \d+ nm · longest band 37\d nm/);
 		});
 	}
 

@@ -94,7 +94,8 @@ test.describe('Quantum yield from a series (Library)', () => {
 		await page.getByTestId('qy-series').selectOption({ label: (await option.textContent())!.trim() });
 		// times come from the column headers
 		await expect(page.getByTestId('qy-times').locator('input').nth(3)).toHaveValue('120');
-		await page.getByTestId('qy-reactant').selectOption({ label: reactant.name });
+		await page.getByTestId('qy-reactant').selectOption(String(reactant.id));
+		await expect(page.getByTestId('qy-reactant').locator('option:checked')).toContainText(/longest band 36\d nm/);
 		await page.getByTestId('qy-lamp').selectOption({ label: 'Bench LED 365 (array A)' });
 		await page.getByTestId('qy-wall').selectOption({ label: 'Fused silica, UV grade' });
 		await page.getByTestId('qy-compute').click();
@@ -114,6 +115,21 @@ test.describe('Quantum yield from a series (Library)', () => {
 		expect(detail.measuredQuantumYields).toHaveLength(1);
 		expect(detail.measuredQuantumYields[0].quantumYield).toBeGreaterThan(0);
 		expect(detail.measuredQuantumYields[0].lampName).toBe('Bench LED 365 (array A)');
+
+		// the Window finder offers the stored Φ for this substrate and fills it in on request
+		const stored = detail.measuredQuantumYields[0];
+		await page.goto(`/window?s=${reactant.id}`);
+		const offer = page.getByTestId('measured-phi');
+		await expect(offer).toContainText(/Measured Φ = [\d.e+-]+ ± [\d.e+-]+/);
+		await expect(offer).toContainText('Bench LED 365 (array A)');
+		await expect(offer).toContainText('irradiation series');
+		await offer.getByRole('button').first().click();
+		await expect(page.locator('input[name="quantumYield"]')).toHaveValue(String(stored.quantumYield));
+		await expect(offer).toContainText('Φ filled in from this measurement');
+		await page.screenshot({ path: 'test-results/window-measured-phi-1366.png', fullPage: true });
+		await page.setViewportSize({ width: 390, height: 844 });
+		await page.screenshot({ path: 'test-results/window-measured-phi-390.png', fullPage: true });
+		await page.setViewportSize({ width: 1366, height: 900 });
 
 		// bad input over HTTP: times not increasing → 400 naming the field
 		const bad = await page.request.post('/api/quantum-yield', { data: { spectrumIds: items.map((i: { id: number }) => i.id), timesS: [0, 30, 30, 120, 180, 240, 360, 480], lampId: 1, reactant: { spectrumId: reactant.id }, volumeL: 0.003, pathCm: 1, wall: { materialId: 1, thicknessMm: 1 } }, headers: { origin } });

@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 import { db } from './index';
 import { sideDataOf, type Reader, type SpectrumRow } from './spectra';
 
-export type AbsorberCurveRow = Pick<SpectrumRow, 'id' | 'name' | 'part' | 'kind' | 'y_unit' | 'concentration_m' | 'path_cm' | 'x_nm' | 'y_normalised' | 'lambda_max_nm' | 'visibility' | 'owner_id' | 'group_id'>;
+export type AbsorberCurveRow = Pick<SpectrumRow, 'id' | 'name' | 'part' | 'kind' | 'y_unit' | 'concentration_m' | 'path_cm' | 'x_nm' | 'y_normalised' | 'lambda_max_nm' | 'longest_band_nm' | 'visibility' | 'owner_id' | 'group_id'>;
 
 /**
  * The group's absorption spectra whose part is substrate or photocatalyst, not deleted, that `reader` may see
@@ -17,7 +17,7 @@ export async function listGroupAbsorberCurves(groupId: number, reader: Reader, k
 		.whereNull('s.deleted_at')
 		.orderBy('s.part', 'desc')
 		.orderBy('s.name')
-		.select('s.id', 's.name', 's.part', 's.kind', 's.y_unit', 's.concentration_m', 's.path_cm', 's.lambda_max_nm', 's.visibility', 's.owner_id', 's.group_id');
+		.select('s.id', 's.name', 's.part', 's.kind', 's.y_unit', 's.concentration_m', 's.path_cm', 's.lambda_max_nm', 's.longest_band_nm', 's.visibility', 's.owner_id', 's.group_id');
 	if (!reader.isAdmin) q.where((w) => w.whereIn('s.visibility', ['group', 'public']).orWhere('s.owner_id', reader.userId));
 	const rows: Omit<AbsorberCurveRow, 'x_nm' | 'y_normalised'>[] = await q;
 	// the normalised points live in spectrum_points (db/spectra.ts)

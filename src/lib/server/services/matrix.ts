@@ -108,10 +108,10 @@ export async function groupMatrix(locals: App.Locals, groupIdParam: string | und
 			skipped.push({ kind: 'lamp', id: l.id, name: l.name, reason: (e as Error).message });
 		}
 	}
-	const absorbers: { spectrumId: number; name: string; part: string; lambdaMaxNm: number | null; epsilon: Float64Array }[] = [];
+	const absorbers: { spectrumId: number; name: string; part: string; lambdaMaxNm: number | null; longestWavelengthBandNm: number | null; epsilon: Float64Array }[] = [];
 	for (const r of await listGroupAbsorberCurves(groupId, caller.reader)) {
 		try {
-			absorbers.push({ spectrumId: r.id, name: r.name, part: r.part, lambdaMaxNm: r.lambda_max_nm, epsilon: epsilonOnGrid(r as SpectrumRow, 'spectrum') });
+			absorbers.push({ spectrumId: r.id, name: r.name, part: r.part, lambdaMaxNm: r.lambda_max_nm, longestWavelengthBandNm: r.longest_band_nm ?? null, epsilon: epsilonOnGrid(r as SpectrumRow, 'spectrum') });
 		} catch (e) {
 			skipped.push({ kind: 'spectrum', id: r.id, name: r.name, reason: (e as Error).message });
 		}
@@ -155,7 +155,7 @@ export async function groupMatrix(locals: App.Locals, groupIdParam: string | und
 			model: 'slab vessel lit face-on; each absorber alone at this concentration in the solvent; lamp photon flux at the vessel from its model or latest calibration'
 		},
 		lamps: lamps.map((l) => ({ id: l.id, name: l.name, peakNm: l.peakNm, photonFluxBasis: l.basis.basis, photonFluxBasisLabel: l.basis.label, photonFluxEinsteinPerS: m.lampFluxEinsteinPerS[lamps.indexOf(l)] })),
-		absorbers: absorbers.map((a) => ({ spectrumId: a.spectrumId, name: a.name, part: a.part, lambdaMaxNm: a.lambdaMaxNm })),
+		absorbers: absorbers.map((a) => ({ spectrumId: a.spectrumId, name: a.name, part: a.part, lambdaMaxNm: a.lambdaMaxNm, longestWavelengthBandNm: a.longestWavelengthBandNm })),
 		cells,
 		skipped,
 		computeMs: Math.round(performance.now() - started)

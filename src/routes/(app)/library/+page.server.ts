@@ -17,6 +17,7 @@ function rowOf(s: Item) {
 		part: s.part,
 		kind: s.kind,
 		lambdaMaxNm: s.lambdaMaxNm,
+		longestWavelengthBandNm: s.longestWavelengthBandNm,
 		cutoff50Nm: s.cutoff50Nm,
 		valueAtMax: s.valueAtMax,
 		yUnit: s.yUnit,

@@ -24,6 +24,7 @@ async function choiceOf(locals: App.Locals, id: number | null | undefined): Prom
 			name: row.name,
 			part: row.part,
 			lambdaMaxNm: row.lambda_max_nm,
+			longestWavelengthBandNm: row.longest_band_nm,
 			solvent: row.solvent,
 			hasEpsilon: row.y_unit === 'epsilon' || (Number(row.concentration_m) > 0 && Number(row.path_cm) > 0)
 		};

@@ -30,7 +30,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		spectra: measured.map((s) => ({ id: s.id, name: s.name, label: s.block_label ?? s.name, time: timeFromLabel(s.block_label ?? s.name), pathCm: s.path_cm })),
 		molar: spectra
 			.filter((s) => s.y_unit === 'epsilon' || (Number(s.concentration_m) > 0 && Number(s.path_cm) > 0))
-			.map((s) => ({ id: s.id, name: s.name, part: s.part })),
+			.map((s) => ({ id: s.id, name: s.name, part: s.part, lambdaMaxNm: s.lambda_max_nm, longestWavelengthBandNm: s.longest_band_nm })),
 		series,
 		lamps: lamps.map((l) => ({ id: l.id, name: l.name })),
 		materials: materials.map((m) => ({ id: m.id, name: m.name, typicalThicknessMm: m.typicalThicknessMm }))
