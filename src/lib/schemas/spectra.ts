@@ -9,7 +9,7 @@ export const PARTS = ['substrate', 'photocatalyst', 'product', 'additive', 'solv
 export const KINDS = ['absorption', 'transmission', 'emission', 'reflectance'] as const;
 export const VISIBILITIES = ['private', 'group', 'public'] as const;
 export const X_UNITS = ['nm', 'cm-1', 'um'] as const;
-export const Y_UNITS = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'reflectance', 'reflectance-percent', 'relative', 'W/nm', 'W/m2/nm', 'counts'] as const;
+export const Y_UNITS = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'reflectance', 'reflectance-percent', 'relative', 'W/nm', 'W/m2/nm', 'umol/s/nm', 'umol/m2/s/nm', 'counts'] as const;
 export const SORTS = ['name', 'part', 'lambdaMaxNm', 'createdAt', 'updatedAt', 'solvent', 'owner'] as const;
 
 export type Part = (typeof PARTS)[number];

@@ -1,7 +1,8 @@
 /**
  * Normalisation to nm (ascending) and one y-quantity per kind (PRODUCT.md):
  * absorption → ε (M⁻¹ cm⁻¹) when concentration and path are known, else absorbance;
- * transmission → fraction 0–1; emission → the file's relative or absolute unit (counts → relative).
+ * transmission → fraction 0–1; emission → the file's relative or absolute unit (W nm⁻¹, W m⁻² nm⁻¹, µmol s⁻¹ nm⁻¹,
+ * µmol m⁻² s⁻¹ nm⁻¹; counts → relative, with `y_unit_original` = counts).
  * Wavenumber data are resampled onto a uniform nm grid (λ = 1e7/ν̃), never relabelled.
  */
 import type { NormalisedSpectrum, ParseIssue, RawSpectrum, Result } from './types';
@@ -63,7 +64,8 @@ function convertY(raw: RawSpectrum, c: number | undefined, l: number | undefined
 		return { y, yUnit: 'transmittance' as const };
 	}
 	y.set(raw.y);
-	if (u === 'W/nm' || u === 'W/m2/nm') return { y, yUnit: u };
+	// absolute power and photon densities keep their own unit (photon units are photon spectra: lampModels/measuredEmission.ts)
+	if (u === 'W/nm' || u === 'W/m2/nm' || u === 'umol/s/nm' || u === 'umol/m2/s/nm') return { y, yUnit: u };
 	if (u === 'relative' || u === 'counts') return { y, yUnit: 'relative' as const };
 	return undefined;
 }

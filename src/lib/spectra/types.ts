@@ -21,6 +21,8 @@ export type YUnit =
 	| 'relative'
 	| 'W/nm'
 	| 'W/m2/nm'
+	| 'umol/s/nm'
+	| 'umol/m2/s/nm'
 	| 'counts';
 
 /** One problem found while reading a file. `line` is 1-based in the original text when known. */
@@ -87,7 +89,7 @@ export interface NormalisedSpectrum {
 	x: Float64Array;
 	/** absorption: epsilon (M^-1 cm^-1) or absorbance; transmission: fraction 0..1; emission: relative, area-normalised W nm^-1 (or the file's absolute unit). */
 	y: Float64Array;
-	yUnit: 'epsilon' | 'absorbance' | 'transmittance' | 'reflectance' | 'relative' | 'W/nm' | 'W/m2/nm' | 'counts';
+	yUnit: 'epsilon' | 'absorbance' | 'transmittance' | 'reflectance' | 'relative' | 'W/nm' | 'W/m2/nm' | 'umol/s/nm' | 'umol/m2/s/nm' | 'counts';
 }
 
 /** Derived values stored with a spectrum. */

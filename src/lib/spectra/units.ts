@@ -72,6 +72,10 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 	if (/(log(arithm)?(10)?|lg)[-^]?(of)?(ε|epsilon|eps|e$|molar|extinction)/.test(s)) return { yUnit: 'log-epsilon', kind: 'absorption' };
 	if (/ε|epsilon|molarabs|extinctioncoef|m-1cm-1|l\/mol|lmol-1cm-1|m\^-1cm\^-1/.test(s))
 		return { yUnit: 'epsilon', kind: 'absorption' };
+	// photon units: µmol (m⁻²) s⁻¹ nm⁻¹ are stored as such; other prefixes need the factor (csvUnits applies it), and a
+	// photon unit without a per-wavelength part keeps only the shape, as relative emission
+	const photon = photonUnit(raw);
+	if (photon && photon.scale === 1) return { yUnit: photon.yUnit, kind: 'emission' };
 	// reflectance is not transmittance: no hint (the preview asks the user)
 	if (/^r%$|reflect/.test(s)) return undefined;
 	// power or irradiance with a metric prefix or per cm² (mW/nm, µW/cm²/nm): keep the shape as relative emission rather than
@@ -85,7 +89,6 @@ export function parseYUnit(label: string | undefined): YUnitGuess | undefined {
 		return { yUnit: 'W/m2/nm', kind: 'emission' };
 	if (/w\/nm|wnm-1|radiantflux|spectralpower/.test(s)) return { yUnit: 'W/nm', kind: 'emission' };
 	if (/counts|^cts|intensity\(counts\)/.test(s)) return { yUnit: 'counts', kind: 'emission' };
-	// photon units (µmol m⁻² s⁻¹ nm⁻¹ …) describe a light source; the shape is kept as relative emission
 	if (/mols-1|mol\/s|mol\/m2\/s|molm-2s-1|photon|quanta|einstein/.test(s)) return { yUnit: 'relative', kind: 'emission' };
 	if (/emission|fluoresc|luminesc|relativeintensity|intensity|spd|illuminant|daylight|incandescent|cie|\d{4}k/.test(s))
 		return { yUnit: 'relative', kind: 'emission' };
@@ -104,5 +107,56 @@ export const KIND_OF_Y: Record<YUnit, SpectrumKind> = {
 	relative: 'emission',
 	'W/nm': 'emission',
 	'W/m2/nm': 'emission',
+	'umol/s/nm': 'emission',
+	'umol/m2/s/nm': 'emission',
 	counts: 'emission'
 };
+
+/** A stored y unit as a chemist writes it (axis labels, values, messages). */
+export const Y_UNIT_TEXT: Record<string, string> = {
+	absorbance: 'absorbance',
+	epsilon: 'ε (M⁻¹ cm⁻¹)',
+	'log-epsilon': 'log ε',
+	transmittance: 'transmittance (fraction)',
+	'transmittance-percent': 'transmittance (%)',
+	reflectance: 'reflectance (fraction)',
+	'reflectance-percent': 'reflectance (%)',
+	relative: 'relative',
+	'W/nm': 'W nm⁻¹',
+	'W/m2/nm': 'W m⁻² nm⁻¹',
+	'umol/s/nm': 'µmol s⁻¹ nm⁻¹',
+	'umol/m2/s/nm': 'µmol m⁻² s⁻¹ nm⁻¹',
+	counts: 'counts'
+};
+
+/**
+ * Photon-flux units with their factor to µmol (s⁻¹ nm⁻¹, optionally per m²): `µmol m⁻² s⁻¹ nm⁻¹`, `umol/m2/s/nm`,
+ * `mol/s/nm`, `photons cm-2 s-1 nm-1`, `µE m-2 s-1 nm-1` (einstein = mol of photons), `µmol m-2 s-1 µm-1`.
+ * Returns undefined when the label is not a photon-flux density (no per-second or no per-wavelength part).
+ * Avogadro constant 6.02214076e23 mol⁻¹ (CODATA 2018, exact).
+ */
+export function photonUnit(label: string): { yUnit: 'umol/s/nm' | 'umol/m2/s/nm'; scale: number; as: string } | undefined {
+	const s = label
+		.normalize('NFKC')
+		.toLowerCase()
+		.replace(/[⁻−–]/g, '-')
+		.replace(/¹/g, '1')
+		.replace(/²/g, '2')
+		.replace(/μ/g, 'µ')
+		.replace(/\bmicro-?/g, 'µ');
+	// an amount in moles (einstein = mol of photons) wins over a bare "photons" word ("photon irradiance (µmol …)")
+	const amount =
+		/(?:^|[^a-z])(µ|u|n|m|)(mol|e|einsteins?)(?:\s*(?:of\s*)?photons?)?(?![a-z])/.exec(s) ?? /(?:^|[^a-z])()()(photons?|quanta)(?![a-z])/.exec(s);
+	if (!amount) return undefined;
+	const rest = s.slice(amount.index + amount[0].length);
+	if (!/(^|[^a-z])s(ec)?\s*(\^?-1|-1)?(?![a-z])|\/s(?![a-z])|per\s*second/.test(rest)) return undefined;
+	const perX = /(nm|µm|um|microns?)\s*(\^?-1)?(?![a-z])/.exec(rest);
+	if (!perX) return undefined;
+	const area = /(?:^|[^a-z])(m|cm|mm)\s*(\^?-?2)(?![a-z])/.exec(rest);
+	const AVOGADRO = 6.02214076e23;
+	const PREFIX: Record<string, number> = { '': 1e6, m: 1e3, µ: 1, u: 1, n: 1e-3 };
+	const toMicromol = amount[3] ? 1e6 / AVOGADRO : PREFIX[amount[1]] ?? 1;
+	const perArea = area ? { m: 1, cm: 1e4, mm: 1e6 }[area[1] as 'm' | 'cm' | 'mm'] : 1;
+	const perNm = perX[1] === 'nm' ? 1 : 1e-3;
+	return { yUnit: area ? 'umol/m2/s/nm' : 'umol/s/nm', scale: toMicromol * perArea * perNm, as: label.trim() };
+}

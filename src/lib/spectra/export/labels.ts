@@ -9,6 +9,8 @@ export const JCAMP_Y_UNITS: Record<NormalisedSpectrum['yUnit'], string> = {
 	relative: 'RELATIVE INTENSITY',
 	'W/nm': 'W/NM',
 	'W/m2/nm': 'W/M2/NM',
+	'umol/s/nm': 'MICROMOL PHOTONS/S/NM',
+	'umol/m2/s/nm': 'MICROMOL PHOTONS/M2/S/NM',
 	counts: 'COUNTS'
 };
 
@@ -20,6 +22,8 @@ export const CSV_Y_HEADERS: Record<NormalisedSpectrum['yUnit'], string> = {
 	relative: 'relative emission',
 	'W/nm': 'W/nm',
 	'W/m2/nm': 'W/m2/nm',
+	'umol/s/nm': 'umol/s/nm',
+	'umol/m2/s/nm': 'umol/m2/s/nm',
 	counts: 'counts'
 };
 

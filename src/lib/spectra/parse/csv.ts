@@ -5,7 +5,7 @@
  * (decimal comma, E-notation), not by papaparse. Pure: no I/O; the result is structured-clonable.
  */
 import type { ParseIssue, RawSpectrum, Result, SpectrumKind, XUnit, YUnit } from '../types';
-import { HC_EV_NM } from '../units';
+import { HC_EV_NM, Y_UNIT_TEXT } from '../units';
 import { columnConsensus, guessColumns, readPreamble, type ColumnGuess, type Preamble } from './csvColumns';
 import { chooseLayout, headerNumbers, type CsvLayout, type LayoutChoice } from './csvLayout';
 import { checkXRangeNm, checkYPlausible } from './csvPhysical';
@@ -254,7 +254,7 @@ function readColumns(plan: DelimitedPlan, options: DelimitedOptions): Result<Raw
 		else if (guess?.as?.endsWith('(file name)')) note = `no unit stated in the file; read as ${guess.yUnit === 'W/m2/nm' ? 'spectral irradiance, W m⁻² nm⁻¹' : guess.yUnit} because the file name says so — please confirm`;
 		if (guess && guess.scale !== 1 && !options.yUnit) {
 			for (let i = 0; i < b.y.length; i++) b.y[i] *= guess.scale;
-			warnings.push({ severity: 'warning', code: 'y_scaled', message: `${what}: ${c.name ? 'values' : guess.as ?? 'values'} converted to ${guess.yUnit.replace('W/m2/nm', 'W m⁻² nm⁻¹').replace('W/nm', 'W nm⁻¹')} (× ${guess.scale})` });
+			warnings.push({ severity: 'warning', code: 'y_scaled', message: `${what}: ${c.name ? 'values' : guess.as ?? 'values'} converted to ${Y_UNIT_TEXT[guess.yUnit] ?? guess.yUnit} (× ${guess.scale})` });
 		}
 		const density = !!guess && (guess.kind === 'emission' || guess.perX === 'ev');
 		const fileX = options.xUnit ? undefined : convertAxis(b, xc.headerXUnit, density, warnings, what) ?? xc.xUnit;

@@ -52,7 +52,7 @@ export interface Preamble {
 	keyValues: { key: string; value: string; line: number }[];
 }
 
-const API_Y_UNITS: YUnit[] = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'reflectance', 'reflectance-percent', 'relative', 'W/nm', 'W/m2/nm', 'counts'];
+const API_Y_UNITS: YUnit[] = ['absorbance', 'epsilon', 'log-epsilon', 'transmittance', 'transmittance-percent', 'reflectance', 'reflectance-percent', 'relative', 'W/nm', 'W/m2/nm', 'umol/s/nm', 'umol/m2/s/nm', 'counts'];
 const SPECTROMETER = /integration time|spectrometer|pixels|dark spectrum|boxcar|spectra averaged|scans to average/i;
 const normKey = (k: string) => k.toLowerCase().replace(/^#+/, '').replace(/[^a-z0-9]/g, '');
 

@@ -5,7 +5,7 @@
  * Pure helpers; `parseXUnit`/`parseYUnit` in ../units stay the shared fallbacks.
  */
 import type { SpectrumKind, XUnit, YUnit } from '../types';
-import { HC_EV_NM, parseYUnit, type YUnitGuess } from '../units';
+import { HC_EV_NM, parseYUnit, photonUnit, type YUnitGuess } from '../units';
 
 /** x units a header may state; 'angstrom' and 'ev' are converted to nm by the reader. */
 export type HeaderXUnit = XUnit | 'angstrom' | 'ev';
@@ -145,6 +145,8 @@ export function yUnitOfHeader(label: string | undefined): (HeaderYUnit & { refle
 	if (r) return { yUnit: r.percent ? 'reflectance-percent' : 'reflectance', kind: 'reflectance', scale: 1, reflectance: r, transmittanceScaleUnknown: r.percent === undefined };
 	const w = radiometricUnit(label);
 	if (w) return w;
+	const p = photonUnit(label);
+	if (p) return { yUnit: p.yUnit, kind: 'emission', scale: p.scale, perX: 'nm', as: p.as };
 	// "A", "A 10 µM", "A (run 2)", "A_1": absorbance (capital A as its own word)
 	if (/^A(?=$|[\s_([])/.test(label.trim())) return { yUnit: 'absorbance', kind: 'absorption', scale: 1 };
 	// a bare "T" / "T (%)" column: transmittance (fraction unless it says percent; large values decide as for %T)
