@@ -12,6 +12,7 @@ test.describe('the group’s lamps', () => {
 		await page.getByLabel('Optical power (W)').fill('1');
 		await page.getByLabel('Peak (nm)').fill('365');
 		await page.getByLabel('FWHM (nm)').fill('10');
+		await page.getByLabel('Where people work: distance from the lamp (cm)').fill('50');
 		await page.getByRole('button', { name: 'Save lamp' }).click();
 		await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
 		// CODATA 2018: 1 W at 365 nm = 3.0512 µmol s⁻¹ (REFERENCE.md §4); a 10 nm wide Gaussian LED shifts it by < 0.1 %
@@ -19,6 +20,10 @@ test.describe('the group’s lamps', () => {
 		await expect(page.locator('[data-caution="uv-a"]')).toBeVisible();
 		await expect(page.locator('[data-caution="uv-c"]')).toHaveCount(0);
 		await expect(page.locator('[data-caution="consult-safety-officer"]')).toContainText('safety officer');
+		// 1 W on a Lambertian emitter's axis at 50 cm: E = 1/(π·0.5²) = 1.27 W m⁻² (common practice geometry)
+		await expect(page.getByTestId('exposure-irradiance')).toContainText('1.27 W m⁻²');
+		await expect(page.locator('[data-caution="exposure-at-distance"]')).toContainText('At 50 cm the lamp gives 1.3 W m⁻² (model: Lambertian emitter');
+		await expect(page.locator('[data-caution="exposure-at-distance"]')).toContainText('below the 10 W m⁻² limit for long exposures');
 		await page.screenshot({ path: 'test-results/lamp-detail.png', fullPage: true });
 	});
 

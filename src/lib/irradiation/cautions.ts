@@ -5,6 +5,7 @@
  * to local regulations and the institution's safety officer.
  */
 import { actinicEffectiveFraction } from './icnirp';
+import { exposureAtDistance, formatExposureTime, type ExposureAtDistance, type ExposureInput } from './exposure';
 import { CAUTION_GRID, lampSpectrum, type LampModel, type LampType } from './lamps';
 
 export type BandName = 'UV-C' | 'UV-B' | 'UV-A' | 'blue' | 'visible' | 'IR';
@@ -59,6 +60,8 @@ export interface CautionOptions {
 	ozoneBelowNm?: number;
 	/** Optical power in 400–500 nm from which the blue-light caution applies, W (default 1). */
 	blueLightThresholdW?: number;
+	/** A stated distance to the person (and a radiometer reading there): adds the irradiance there and the limit times. */
+	exposure?: ExposureInput | null;
 }
 
 const pct = (f: number) => (f >= 0.995 ? '100 %' : f >= 0.1 ? `${(f * 100).toFixed(0)} %` : `${(f * 100).toPrecision(2)} %`);
@@ -92,8 +95,38 @@ export function cautionsForSpectrum(s: EmissionSpectrum, options: CautionOptions
 			text: `About ${blueW.toPrecision(2)} W of optical power in 400–500 nm: photochemical retinal hazard (weighting peaks near 435–440 nm). Never look into the source; use orange or amber filter shields.`,
 			source: 'IEC 62471:2006; ICNIRP, Health Phys. 105, 74 (2013)' });
 	}
+	if (options.exposure) {
+		const e = exposureAtDistance(s, options.exposure, lampType);
+		if (e) out.push(exposureCaution(e));
+	}
 	out.push(...lampTypeCautions(lampType, total));
 	return finish(out);
+}
+
+const sig = (v: number) => (v >= 100 ? v.toFixed(0) : v.toPrecision(2));
+const GROUP: Record<string, string> = { exempt: 'the exempt group', RG1: 'risk group 1', RG2: 'risk group 2', RG3: 'risk group 3' };
+
+/** The irradiance at the stated distance and the ICNIRP limit times (exposure.ts), as one caution. */
+function exposureCaution(e: ExposureAtDistance): Caution {
+	const uv = e.actinicEffectiveWPerM2 > 0 || e.uvaWPerM2 > 0;
+	const actinicShort = e.actinicLimitS !== null && e.actinicLimitS < 8 * 3600;
+	const severity: CautionSeverity = (e.actinicLimitS !== null && e.actinicLimitS < 3600) || e.uvaLimitS !== null ? 'danger' : actinicShort ? 'warning' : 'info';
+	const parts = [`At ${e.distanceCm} cm the lamp gives ${sig(e.irradianceWPerM2)} W m⁻² (${e.basisLabel}).`];
+	if (uv) {
+		parts.push(
+			`Actinic UV ${e.actinicEffectiveWPerM2.toPrecision(2)} W m⁻² effective: the ICNIRP daily limit of 30 J m⁻² is reached in ${e.actinicLimitS !== null ? formatExposureTime(e.actinicLimitS) : '—'}.`,
+			`UV-A ${e.uvaWPerM2.toPrecision(2)} W m⁻²: ${e.uvaLimitS !== null ? `the eye limit of 10 kJ m⁻² is reached in ${formatExposureTime(e.uvaLimitS)}` : 'below the 10 W m⁻² limit for long exposures'}.`,
+			`For orientation only, IEC 62471 would put these values in ${GROUP[e.actinicGroup]} (actinic UV) and ${GROUP[e.uvaGroup]} (UV-A, eye); the standard assesses at its own distance.`
+		);
+	}
+	if (e.blueWPerM2 > 0) parts.push(`400–500 nm: ${sig(e.blueWPerM2)} W m⁻²; the retinal blue-light hazard depends on the source's radiance, not assessed here: never look into the source.`);
+	return {
+		code: 'exposure-at-distance',
+		severity,
+		title: `Exposure at ${e.distanceCm} cm`,
+		text: parts.join(' '),
+		source: 'ICNIRP, Health Phys. 87, 171–186 (2004) (limits from memory); IEC 62471:2006 risk-group values (from memory); geometry model common practice'
+	};
 }
 
 function lampTypeCautions(type: LampType | undefined, powerW: number): Caution[] {

@@ -50,6 +50,10 @@ export const lampCreateSchema = z.object({
 	model: lampModelSchema,
 	couplingFactor: z.number().gt(0, 'couplingFactor must be above 0').max(1, 'couplingFactor is a fraction (at most 1)').optional(),
 	distanceNote: z.string().trim().max(255).optional(),
+	/** Where a person works, cm from the emitting surface: the cautions then give the irradiance there. */
+	exposureDistanceCm: z.number({ error: 'exposureDistanceCm must be a number of centimetres' }).positive('exposureDistanceCm must be above 0 cm').max(10000, 'exposureDistanceCm is at most 10000 cm (100 m)').nullable().optional(),
+	/** A radiometer reading at that distance over the lamp's whole optical band, W m⁻². */
+	exposureIrradianceWPerM2: z.number({ error: 'exposureIrradianceWPerM2 must be a number of W m⁻²' }).positive('exposureIrradianceWPerM2 must be above 0 W m⁻²').max(1e6).nullable().optional(),
 	notes: z.string().trim().max(4000).optional(),
 	groupId: z.number().int().positive().optional()
 });

@@ -12,6 +12,9 @@ export interface LampRow {
 	powerW: number;
 	couplingFactor: number;
 	distanceNote: string | null;
+	/** Stated distance to the person, cm, and an optional radiometer reading there (W m⁻²). */
+	exposureDistanceCm: number | null;
+	exposureIrradianceWPerM2: number | null;
 	notes: string | null;
 	version: number;
 	createdAt: Date;
@@ -28,6 +31,8 @@ function toLamp(r: Record<string, unknown>): LampRow {
 		powerW: Number(r.power_w),
 		couplingFactor: Number(r.coupling_factor),
 		distanceNote: (r.distance_note as string) ?? null,
+		exposureDistanceCm: r.exposure_distance_cm == null ? null : Number(r.exposure_distance_cm),
+		exposureIrradianceWPerM2: r.exposure_irradiance_w_m2 == null ? null : Number(r.exposure_irradiance_w_m2),
 		notes: (r.notes as string) ?? null,
 		version: Number(r.version),
 		createdAt: r.created_at as Date,
@@ -60,6 +65,8 @@ export async function insertLamp(
 		power_w: row.powerW,
 		coupling_factor: row.couplingFactor,
 		distance_note: row.distanceNote,
+		exposure_distance_cm: row.exposureDistanceCm,
+		exposure_irradiance_w_m2: row.exposureIrradianceWPerM2,
 		notes: row.notes
 	});
 	return Number(id);
@@ -69,7 +76,7 @@ export async function insertLamp(
 export async function updateLampIfVersion(
 	id: number,
 	version: number,
-	patch: Partial<Pick<LampRow, 'name' | 'model' | 'powerW' | 'couplingFactor' | 'distanceNote' | 'notes'>>
+	patch: Partial<Pick<LampRow, 'name' | 'model' | 'powerW' | 'couplingFactor' | 'distanceNote' | 'exposureDistanceCm' | 'exposureIrradianceWPerM2' | 'notes'>>
 ): Promise<number> {
 	const row: Record<string, unknown> = { version: version + 1, updated_at: db().fn.now() };
 	if (patch.name !== undefined) row.name = patch.name;
@@ -77,6 +84,8 @@ export async function updateLampIfVersion(
 	if (patch.powerW !== undefined) row.power_w = patch.powerW;
 	if (patch.couplingFactor !== undefined) row.coupling_factor = patch.couplingFactor;
 	if (patch.distanceNote !== undefined) row.distance_note = patch.distanceNote;
+	if (patch.exposureDistanceCm !== undefined) row.exposure_distance_cm = patch.exposureDistanceCm;
+	if (patch.exposureIrradianceWPerM2 !== undefined) row.exposure_irradiance_w_m2 = patch.exposureIrradianceWPerM2;
 	if (patch.notes !== undefined) row.notes = patch.notes;
 	return db()('lamps').where({ id, version }).update(row);
 }

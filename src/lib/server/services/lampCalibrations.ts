@@ -15,7 +15,7 @@ import { groupCalibrationIntervalDays, insertLampCalibration, listLampCalibratio
 import { getWallMaterial, type WallMaterial } from '$lib/server/db/wallMaterials';
 import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, roleAtLeast } from '$lib/server/policy';
-import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
+import { describeLamp, exposureOf, resolveLampModel, vesselPowerW } from './lamps';
 import { findLamp } from '$lib/server/db/lamps';
 import { loadGroupRow, requireMemberSomewhere } from './groupChoice';
 
@@ -78,7 +78,7 @@ export async function recordActinometry(locals: App.Locals, body: unknown) {
 	const lamp = await lampForWrite(locals, req.lampId);
 	const material = await wallFor(lamp.groupId, req.vessel.materialId);
 	const model = await resolveLampModel(lamp.model, locals);
-	const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);
+	const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW, exposureOf(lamp));
 	const t = wallT(material, req.vessel.thicknessMm);
 	const incident = new Float64Array(GRID.count);
 	for (let i = 0; i < GRID.count; i++) incident[i] = d.photonFluxPerNm[i] * t[i];
@@ -127,7 +127,7 @@ export async function recordRadiometer(locals: App.Locals, idParam: string | und
 	const req = parsed.data;
 	const material = await wallFor(lamp.groupId, req.vessel.materialId);
 	const model = await resolveLampModel(lamp.model, locals);
-	const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);
+	const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW, exposureOf(lamp));
 	const flux = radiometerPhotonFlux(req.opticalPowerW, d.spectrum.wavelengthNm, d.spectrum.powerWPerNm, wallT(material, req.vessel.thicknessMm), GRID.stepNm);
 	if (!(flux > 0)) throw new ApiError(422, 'physically_invalid', 'vessel: no light of this lamp passes this wall.', { field: 'vessel.materialId' });
 	const measuredAt = measuredAtOf(req.measuredAt);

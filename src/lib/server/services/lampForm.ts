@@ -25,6 +25,9 @@ export function lampBodyFromForm(f: FormData): Record<string, unknown> {
 		powerW: num(f.get('powerW')),
 		couplingFactor: num(f.get('couplingFactor')),
 		distanceNote: text(f.get('distanceNote')),
+		// a cleared field clears the stored value (null), as the API allows
+		exposureDistanceCm: num(f.get('exposureDistanceCm')) ?? null,
+		exposureIrradianceWPerM2: num(f.get('exposureIrradianceWPerM2')) ?? null,
 		notes: text(f.get('notes')),
 		model,
 		...(f.get('version') ? { version: num(f.get('version')) } : {})

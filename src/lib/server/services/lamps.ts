@@ -4,6 +4,7 @@
  * (CODATA 2018, REFERENCE.md §4), peak and the cautions for the bands it emits.
  */
 import { cautionsForSpectrum, spectralBandShares } from '$lib/irradiation/cautions';
+import { exposureAtDistance, type ExposureInput } from '$lib/irradiation/exposure';
 import {
 	CAUTION_GRID,
 	DEFAULT_LAMP_GRID,
@@ -66,7 +67,7 @@ export const vesselPowerW = (lamp: Pick<LampRow, 'powerW' | 'couplingFactor'>) =
  * are at `powerW` (the power reaching the vessel); bands and cautions come from what the lamp itself emits,
  * `emittedPowerW` (default powerW) — a coupling factor never removes a caution.
  */
-export function describeLamp(model: LampModel, powerW: number, grid: SpectralGrid = DEFAULT_LAMP_GRID, emittedPowerW = powerW) {
+export function describeLamp(model: LampModel, powerW: number, grid: SpectralGrid = DEFAULT_LAMP_GRID, emittedPowerW = powerW, exposure: ExposureInput | null = null) {
 	const spectrum = lampSpectrum(model, powerW, grid);
 	const wide = lampSpectrum(model, emittedPowerW, CAUTION_GRID);
 	return {
@@ -76,9 +77,14 @@ export function describeLamp(model: LampModel, powerW: number, grid: SpectralGri
 		photonFluxEinsteinPerS: totalPhotonFluxEinsteinPerS(spectrum),
 		bands: spectralBandShares(wide, 0.01),
 		// the wide grid keeps VUV lines (185 nm Hg, 172 nm Xe₂*) that decide the ozone caution
-		cautions: cautionsForSpectrum(wide, { lampType: model.type })
+		cautions: cautionsForSpectrum(wide, { lampType: model.type, exposure }),
+		exposure: exposure ? exposureAtDistance(wide, exposure, model.type) : null
 	};
 }
+
+/** The lamp's stated exposure distance and radiometer reading there, when a distance is stated. */
+export const exposureOf = (lamp: Pick<LampRow, 'exposureDistanceCm' | 'exposureIrradianceWPerM2'>): ExposureInput | null =>
+	lamp.exposureDistanceCm ? { distanceCm: lamp.exposureDistanceCm, measuredIrradianceWPerM2: lamp.exposureIrradianceWPerM2 } : null;
 
 /** A short human label of a model, e.g. "LED 450 nm, FWHM 20 nm". */
 export function describeModel(model: LampModelInput): string {
@@ -108,9 +114,9 @@ export function describeModel(model: LampModelInput): string {
  * Preview of a lamp before it is saved: its spectrum on a 1 nm plot grid, photon flux, peak, bands and cautions; for a
  * measured spectrum also the curve with its floor kept, so that the user sees what the floor removal does.
  */
-export async function previewLamp(model: LampModelInput, powerW: number, couplingFactor: number, locals: App.Locals) {
+export async function previewLamp(model: LampModelInput, powerW: number, couplingFactor: number, locals: App.Locals, exposure: ExposureInput | null = null) {
 	const resolved = await resolveLamp(model, locals);
-	const d = describeLamp(resolved.model, powerW * couplingFactor, DEFAULT_LAMP_GRID, powerW);
+	const d = describeLamp(resolved.model, powerW * couplingFactor, DEFAULT_LAMP_GRID, powerW, exposure);
 	const pick = (a: ArrayLike<number>) => Array.from({ length: Math.ceil(a.length / 2) }, (_, k) => a[2 * k]);
 	const x = pick(d.spectrum.wavelengthNm);
 	const norm = (a: number[]) => {
@@ -130,6 +136,7 @@ export async function previewLamp(model: LampModelInput, powerW: number, couplin
 		photonFluxEinsteinPerS: d.photonFluxEinsteinPerS,
 		bands: d.bands.map((b) => ({ band: b.band, fromNm: b.fromNm, toNm: b.toNm, fraction: b.fraction })),
 		cautions: d.cautions,
+		exposure: d.exposure,
 		emission: resolved.emission ?? null
 	};
 }

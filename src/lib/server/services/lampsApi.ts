@@ -5,7 +5,7 @@ import { ApiError, zodToApiError } from '$lib/server/http';
 import { membershipsOf, requireGroupRole, requireUser, roleAtLeast } from '$lib/server/policy';
 import { groupForNewRow, loadGroupRow, requireMemberSomewhere } from './groupChoice';
 import { calibrationToApi, lampBasis } from './lampCalibrations';
-import { describeLamp, describeModel, resolveLamp, resolveLampModel, vesselPowerW } from './lamps';
+import { describeLamp, describeModel, exposureOf, resolveLamp, resolveLampModel, vesselPowerW } from './lamps';
 
 /**
  * The JSON shape of a lamp (API.md: name, powerW, model, peakNm, photonFluxEinsteinPerS; after a calibration
@@ -14,13 +14,13 @@ import { describeLamp, describeModel, resolveLamp, resolveLampModel, vesselPower
  * (`modelPhotonFluxEinsteinPerS` always gives the latter).
  */
 export async function lampToApi(lamp: LampRow, locals: App.Locals) {
-	let derived: { peakNm: number | null; modelPhotonFluxEinsteinPerS: number | null; problem?: string; warnings: string[]; emission?: unknown } = { peakNm: null, modelPhotonFluxEinsteinPerS: null, warnings: [] };
+	let derived: { peakNm: number | null; modelPhotonFluxEinsteinPerS: number | null; problem?: string; warnings: string[]; emission?: unknown; exposure?: ReturnType<typeof describeLamp>['exposure'] } = { peakNm: null, modelPhotonFluxEinsteinPerS: null, warnings: [] };
 	try {
 		const resolved = await resolveLamp(lamp.model, locals);
-		const d = describeLamp(resolved.model, vesselPowerW(lamp), undefined, lamp.powerW);
+		const d = describeLamp(resolved.model, vesselPowerW(lamp), undefined, lamp.powerW, exposureOf(lamp));
 		const warnings = [...(resolved.emission?.warnings ?? [])];
 		if (d.spectrum.outsideGridFraction > 0.001) warnings.push(`${(d.spectrum.outsideGridFraction * 100).toPrecision(2)} % of the lamp's optical power lies outside 190–1100 nm (e.g. the 185 nm mercury line) and is not part of the planner's photon flux.`);
-		derived = { peakNm: d.peakNm, modelPhotonFluxEinsteinPerS: d.photonFluxEinsteinPerS, warnings, emission: resolved.emission };
+		derived = { peakNm: d.peakNm, modelPhotonFluxEinsteinPerS: d.photonFluxEinsteinPerS, warnings, emission: resolved.emission, exposure: d.exposure };
 	} catch (e) {
 		derived.problem = e instanceof Error ? e.message : String(e);
 	}
@@ -33,6 +33,9 @@ export async function lampToApi(lamp: LampRow, locals: App.Locals) {
 		powerW: lamp.powerW,
 		couplingFactor: lamp.couplingFactor,
 		distanceNote: lamp.distanceNote,
+		exposureDistanceCm: lamp.exposureDistanceCm,
+		exposureIrradianceWPerM2: lamp.exposureIrradianceWPerM2,
+		exposure: derived.exposure ?? null,
 		notes: lamp.notes,
 		model: lamp.model,
 		modelLabel: describeModel(lamp.model),
@@ -64,6 +67,7 @@ export async function createLamp(locals: App.Locals, body: unknown): Promise<Lam
 	const parsed = lampCreateSchema.safeParse(body);
 	if (!parsed.success) throw zodToApiError(parsed.error);
 	const input = parsed.data;
+	requireDistanceForReading(input.exposureDistanceCm, input.exposureIrradianceWPerM2);
 	const groupId = input.groupId ?? (await groupForNewRow(locals));
 	await requireGroupRole(locals, groupId, 'member');
 	checkComputable(await resolveLampModel(input.model, locals), input.powerW);
@@ -76,6 +80,8 @@ export async function createLamp(locals: App.Locals, body: unknown): Promise<Lam
 			powerW: input.powerW,
 			couplingFactor: input.couplingFactor ?? 1,
 			distanceNote: input.distanceNote ?? null,
+			exposureDistanceCm: input.exposureDistanceCm ?? null,
+			exposureIrradianceWPerM2: input.exposureIrradianceWPerM2 ?? null,
 			notes: input.notes ?? null
 		});
 		return (await findLamp(id))!;
@@ -93,10 +99,20 @@ export async function patchLamp(locals: App.Locals, idParam: string | undefined,
 	const parsed = lampPatchSchema.safeParse(body);
 	if (!parsed.success) throw zodToApiError(parsed.error);
 	const { version, ...patch } = parsed.data;
+	requireDistanceForReading(
+		patch.exposureDistanceCm !== undefined ? patch.exposureDistanceCm : lamp.exposureDistanceCm,
+		patch.exposureIrradianceWPerM2 !== undefined ? patch.exposureIrradianceWPerM2 : lamp.exposureIrradianceWPerM2
+	);
 	if (patch.model || patch.powerW) checkComputable(await resolveLampModel(patch.model ?? lamp.model, locals), patch.powerW ?? lamp.powerW);
 	const changed = await updateLampIfVersion(lamp.id, version ?? lamp.version, patch);
 	if (!changed) throw new ApiError(409, 'version_conflict', 'Someone changed this lamp since you loaded it; reload and apply your change again.', { field: 'version' });
 	return (await findLamp(lamp.id))!;
+}
+
+/** A radiometer reading means nothing without the distance it was taken at (400 naming exposureDistanceCm). */
+function requireDistanceForReading(distanceCm: number | null | undefined, irradiance: number | null | undefined) {
+	if (irradiance != null && distanceCm == null)
+		throw new ApiError(400, 'invalid', 'exposureDistanceCm: state the distance at which the irradiance was measured.', { field: 'exposureDistanceCm' });
 }
 
 function checkComputable(model: Parameters<typeof describeLamp>[0], powerW: number) {

@@ -12,7 +12,7 @@ import type { SpectrumRow } from '$lib/server/db/spectra';
 import { bufferToFloat64 } from '$lib/server/db/spectraBlobs';
 import { ApiError } from '$lib/server/http';
 import { plannerPhotonFlux } from './lampCalibrations';
-import { describeLamp, resolveLampModel, vesselPowerW } from './lamps';
+import { describeLamp, exposureOf, resolveLampModel, vesselPowerW } from './lamps';
 import { solventCurveOnGrid } from './solventLink';
 import { visibleSpectrum, type Caller } from './spectraAccess';
 
@@ -84,7 +84,7 @@ export async function lampsOnGrid(locals: App.Locals, caller: Caller, ids: numbe
 	for (const lamp of lamps) {
 		const model = await resolveLampModel(lamp.model, locals);
 		// cautions from what the lamp itself emits (lamp.powerW), not from the power coupled into the vessel
-		const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW);
+		const d = describeLamp(model, vesselPowerW(lamp), GRID, lamp.powerW, exposureOf(lamp));
 		// calibration (lamps' own module): the flux entering through the calibration wall, the wall applied once
 		const planned = await plannerPhotonFlux(lamp, d.photonFluxPerNm, groupIds);
 		out.push({ lamp, model, photonFluxPerNm: planned.photonFluxPerNm, peakNm: d.peakNm, cautions: d.cautions, basis: planned.basis.photonFluxBasis, calibration: planned });

@@ -9,7 +9,7 @@ export const GET: RequestHandler = apiHandler(async ({ locals }) => {
 	return json(await Promise.all(lamps.map((l) => lampToApi(l, locals))));
 });
 
-/** POST /api/lamps `{ name, powerW, model, couplingFactor?, distanceNote?, notes?, groupId? }` — member+. */
+/** POST /api/lamps `{ name, powerW, model, couplingFactor?, distanceNote?, exposureDistanceCm?, exposureIrradianceWPerM2?, notes?, groupId? }` — member+. */
 export const POST: RequestHandler = apiHandler(async ({ locals, request }) => {
 	const lamp = await createLamp(locals, await readJson(request));
 	return json(await lampToApi(lamp, locals), { status: 201 });

@@ -3,7 +3,7 @@ import { findLamp, setGroupCalibrationIntervalDays } from '$lib/server/db/lamps'
 import { calibrationRights } from '$lib/server/services/lampCalibrations';
 import { ApiError } from '$lib/server/http';
 import { membershipsOf, roleAtLeast } from '$lib/server/policy';
-import { describeLamp, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
+import { describeLamp, exposureOf, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
 import { failureOf, formValues, lampBodyFromForm } from '$lib/server/services/lampForm';
 import { lampToApi, patchLamp, visibleLamp } from '$lib/server/services/lampsApi';
 import type { Actions, PageServerLoad } from './$types';
@@ -27,7 +27,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	let cautions: Awaited<ReturnType<typeof describeLamp>>['cautions'] = [];
 	try {
 		// spectrum and flux at the vessel (power × coupling); bands and cautions from what the lamp itself emits
-		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp), undefined, lamp.powerW);
+		const d = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp), undefined, lamp.powerW, exposureOf(lamp));
 		// Plot on a 1 nm grid (every second point of the 0.5 nm planner grid).
 		const x: number[] = [], power: number[] = [], flux: number[] = [];
 		for (let i = 0; i < d.spectrum.wavelengthNm.length; i += 2) {

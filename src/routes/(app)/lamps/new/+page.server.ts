@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { lampCreateSchema } from '$lib/schemas/lamps';
 import { createLamp } from '$lib/server/services/lampsApi';
-import { previewLamp } from '$lib/server/services/lamps';
+import { exposureOf, previewLamp } from '$lib/server/services/lamps';
 import { failureOf, formValues, lampBodyFromForm } from '$lib/server/services/lampForm';
 import { zodToApiError } from '$lib/server/http';
 import type { Actions, PageServerLoad } from './$types';
@@ -36,7 +36,7 @@ async function preview(form: FormData, locals: App.Locals) {
 		const parsed = lampCreateSchema.safeParse({ ...body, name: (body.name as string) || 'preview' });
 		if (!parsed.success) throw zodToApiError(parsed.error);
 		const p = parsed.data;
-		return { values: formValues(form), preview: await previewLamp(p.model, p.powerW, p.couplingFactor ?? 1, locals) };
+		return { values: formValues(form), preview: await previewLamp(p.model, p.powerW, p.couplingFactor ?? 1, locals, exposureOf({ exposureDistanceCm: p.exposureDistanceCm ?? null, exposureIrradianceWPerM2: p.exposureIrradianceWPerM2 ?? null })) };
 	} catch (e) {
 		const f = failureOf(e);
 		if (!f) {

@@ -3,7 +3,7 @@ import { listWallMaterials } from '$lib/server/db/wallMaterials';
 import { ApiError } from '$lib/server/http';
 import { actinometersToApi, calibrationRights, recordActinometry, recordRadiometer } from '$lib/server/services/lampCalibrations';
 import { actinometryBodyFromForm, failureOf, formValues, radiometerBodyFromForm } from '$lib/server/services/lampForm';
-import { describeLamp, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
+import { describeLamp, exposureOf, resolveLampModel, vesselPowerW } from '$lib/server/services/lamps';
 import { lampToApi, visibleLamp } from '$lib/server/services/lampsApi';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,7 +21,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const lamp = await lampOr404(locals, params.id);
 	let cautions: ReturnType<typeof describeLamp>['cautions'] = [];
 	try {
-		cautions = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp), undefined, lamp.powerW).cautions;
+		cautions = describeLamp(await resolveLampModel(lamp.model, locals), vesselPowerW(lamp), undefined, lamp.powerW, exposureOf(lamp)).cautions;
 	} catch {
 		// the lamp page explains a model that cannot be computed
 	}
