@@ -71,6 +71,16 @@ describe('longest band in real files (../shared/external)', () => {
 		// deuterium-lamp Balmer lines (486.0, 656.1 nm; common practice) are one- or two-sample spikes, not bands
 		expect(d.bands!.some((b) => Math.abs(b.wavelengthNm - 656) <= 2)).toBe(false);
 	});
+	it('UV file written with three decimals (cheminfo/jcampconverter uv_ACD.jdx): its one band is the saturated 216 nm maximum (MANIFEST), not a one-digit step in the tail', () => {
+		const s = norm(parseExternal('jcamp/uv-mislabelled-as-infrared-1-per-cm.jdx').value[0]);
+		const d = deriveSpectrum(s);
+		// MANIFEST: max y 3.076 at 216.0–216.5; the tail from 500 nm on reads 0.005, 0.004, 0.003 (steps of 0.001)
+		expect(d.longestBandNm).toBe(216);
+		expect(d.longestBandSaturated).toBe(true);
+		expect(d.bands!.filter((b) => b.wavelengthNm > 300)).toEqual([]);
+		// rounding noise of a 0.001 step: σ = 0.001/√12 (uniform error; common practice)
+		expect(d.noiseSigma).toBeCloseTo(0.001 / Math.sqrt(12), 9);
+	});
 	it('cobalt aquation, 5 blocks (nzhagen/jcamp blckpac1.jdx): d–d band t1 614 nm → t5 596 nm (MANIFEST)', () => {
 		const r = parseExternal('jcamp/cobalt-aquation-kinetics-5-blocks.jdx');
 		expect(Math.abs(deriveSpectrum(norm(r.value[0])).longestBandNm! - 614)).toBeLessThanOrEqual(2);

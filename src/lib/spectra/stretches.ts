@@ -38,7 +38,29 @@ export interface Stretches {
 
 const HALF = 5;
 
-/** Robust noise σ of y from its second differences (see the file comment); 0 for fewer than 5 samples. */
+/**
+ * The resolution of y when the file wrote it with a fixed number of decimals (or as integers × YFACTOR): the
+ * smallest step between neighbouring values when ≥ 95 % of all non-zero steps are whole multiples of it; 0 otherwise.
+ */
+export function quantisationStep(y: ArrayLike<number>): number {
+	const steps: number[] = [];
+	for (let i = 1; i < y.length; i++) {
+		const d = Math.abs(y[i] - y[i - 1]);
+		if (d > 0 && Number.isFinite(d)) steps.push(d);
+	}
+	if (steps.length < 10) return 0;
+	let q = Infinity;
+	for (const d of steps) if (d < q) q = d;
+	let whole = 0;
+	for (const d of steps) if (Math.abs(d / q - Math.round(d / q)) < 1e-3) whole++;
+	return whole >= 0.95 * steps.length ? q : 0;
+}
+
+/**
+ * Robust noise σ of y from its second differences (see the file comment), never below the rounding noise of the
+ * file's own resolution q (σ = q/√12 for rounding to a step q, the standard deviation of a uniform error; common
+ * practice): data written with three decimals cannot show a band one digit high. 0 for fewer than 5 samples.
+ */
 export function estimateNoiseSigma(y: ArrayLike<number>): number {
 	const n = y.length;
 	if (n < 5) return 0;
@@ -46,7 +68,7 @@ export function estimateNoiseSigma(y: ArrayLike<number>): number {
 	for (let i = 1; i < n - 1; i++) d2[i - 1] = Math.abs(y[i - 1] - 2 * y[i] + y[i + 1]);
 	d2.sort();
 	const med = d2.length % 2 ? d2[(d2.length - 1) / 2] : 0.5 * (d2[d2.length / 2 - 1] + d2[d2.length / 2]);
-	return (1.4826 * med) / Math.sqrt(6);
+	return Math.max((1.4826 * med) / Math.sqrt(6), quantisationStep(y) / Math.sqrt(12));
 }
 
 /** Saturated and noise-dominated stretches of a spectrum. */
