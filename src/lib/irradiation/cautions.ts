@@ -119,7 +119,7 @@ function exposureCaution(e: ExposureAtDistance): Caution {
 			`For orientation only, IEC 62471 would put these values in ${GROUP[e.actinicGroup]} (actinic UV) and ${GROUP[e.uvaGroup]} (UV-A, eye); the standard assesses at its own distance.`
 		);
 	}
-	if (e.blueWPerM2 > 0) parts.push(`400–500 nm: ${sig(e.blueWPerM2)} W m⁻²; the retinal blue-light hazard depends on the source's radiance, not assessed here: never look into the source.`);
+	if (e.blueWPerM2 >= 0.01 * e.irradianceWPerM2) parts.push(`400–500 nm: ${sig(e.blueWPerM2)} W m⁻²; the retinal blue-light hazard depends on the source's radiance, not assessed here: never look into the source.`);
 	return {
 		code: 'exposure-at-distance',
 		severity,

@@ -106,7 +106,7 @@ export function exposureAtDistance(s: Spectrum, input: ExposureInput, lampType?:
 		basis,
 		basisLabel:
 			basis === 'measured'
-				? `measured ${measured} W m⁻² at ${where}, spread over the lamp's spectrum`
+				? `radiometer reading at ${where}, spread over the lamp's spectrum`
 				: basis === 'lambertian-model'
 					? `model: Lambertian emitter on its axis, E = P/(π d²) at ${where} from the emitted optical power; lenses, reflectors and the near field give more`
 					: `model: isotropic point source, E = P/(4π d²) at ${where} from the emitted optical power; reflectors and the near field give more`,
