@@ -193,9 +193,9 @@ function applyOrder(q: Knex.QueryBuilder, o: SpectrumOrder): Knex.QueryBuilder {
 
 /** Stamps the next Library change number (serialises concurrent writers on one row until commit). */
 export async function nextChangeSeq(trx: Knex | Knex.Transaction): Promise<number> {
-	await trx.raw('UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1');
-	const [rows] = await trx.raw('SELECT LAST_INSERT_ID() AS seq');
-	const seq = Number(rows[0].seq);
+	// LAST_INSERT_ID(expr) puts the new value in the statement's OK packet (insertId): one round trip, no SELECT
+	const [ok] = await trx.raw('UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1');
+	const seq = Number((ok as { insertId?: number }).insertId);
 	if (!seq) throw new Error('library_state has no row 1 (run the migrations)');
 	return seq;
 }
@@ -247,14 +247,15 @@ function splitRow<T extends Record<string, unknown>>(row: T) {
  * Inserts spectra (one metadata row each) and their points and vectors with
  * multi-row inserts batched below max_allowed_packet; returns the ids in order.
  */
-export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[], seq?: number): Promise<number[]> {
+export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[], seq?: number, opts: { newFile?: boolean } = {}): Promise<number[]> {
 	const changeSeq = seq ?? (await nextChangeSeq(trx));
 	const ids: number[] = [];
 	const points: Record<string, unknown>[] = [];
 	const vectors: Record<string, unknown>[] = [];
 	const split = rows.map((row) => splitRow(row as unknown as Record<string, unknown>));
 	const fileId = rows[0]?.file_id;
-	if (rows.length > 1 && fileId && rows.every((r) => r.file_id === fileId) && !(await trx('spectra').where({ file_id: fileId }).first('id'))) {
+	// (`newFile`: the caller inserted the file in this transaction, so no spectrum can reference it yet)
+	if (rows.length > 1 && fileId && rows.every((r) => r.file_id === fileId) && (opts.newFile || !(await trx('spectra').where({ file_id: fileId }).first('id')))) {
 		// one multi-row insert for the spectra of one new file; their ids read back in insertion order
 		await insertBatched(trx, 'spectra', split.map(({ meta }) => ({ ...meta, change_seq: changeSeq })));
 		const got = (await trx('spectra').where({ file_id: fileId }).orderBy('id').select('id')).map((r: { id: number }) => Number(r.id));

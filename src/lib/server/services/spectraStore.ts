@@ -146,7 +146,7 @@ export async function storeSpectra(conn: Knex, input: StoreInput) {
 		const tagIds = await findTagIds(trx, tagNames);
 		const fileId = await insertSpectrumFile(trx, { groupId: input.groupId, sha256: sha, fileName: input.filename, bytes: input.bytes });
 		const rows = spectrumRowsFor(input, sha).map((r) => ({ ...r, file_id: fileId }));
-		const out = await insertSpectra(trx, rows, seq);
+		const out = await insertSpectra(trx, rows, seq, { newFile: true });
 		if (tagIds.length) await trx('spectrum_tags').insert(out.flatMap((id) => tagIds.map((tag_id) => ({ spectrum_id: id, tag_id }))));
 		await trx('spectrum_revisions').insert(out.map((id) => ({ spectrum_id: id, version: 1, action: 'create', user_id: input.ownerId, changes: null })));
 		return out;
