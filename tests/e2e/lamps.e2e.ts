@@ -22,7 +22,7 @@ test.describe('the group’s lamps', () => {
 		await expect(page.locator('[data-caution="consult-safety-officer"]')).toContainText('safety officer');
 		// 1 W on a Lambertian emitter's axis at 50 cm: E = 1/(π·0.5²) = 1.27 W m⁻² (common practice geometry)
 		await expect(page.getByTestId('exposure-irradiance')).toContainText('1.27 W m⁻²');
-		await expect(page.locator('[data-caution="exposure-at-distance"]')).toContainText('At 50 cm the lamp gives 1.3 W m⁻² (model: Lambertian emitter');
+		await expect(page.locator('[data-caution="exposure-at-distance"]')).toContainText('At 50 cm the lamp gives 1.27 W m⁻² (model: Lambertian emitter');
 		await expect(page.locator('[data-caution="exposure-at-distance"]')).toContainText('below the 10 W m⁻² limit for long exposures');
 		await page.screenshot({ path: 'test-results/lamp-detail.png', fullPage: true });
 	});

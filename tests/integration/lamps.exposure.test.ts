@@ -33,7 +33,7 @@ describe('exposure at a stated distance', () => {
 		expect(api.exposure!.irradianceWPerM2 / (1.6 / (Math.PI * 0.09))).toBeCloseTo(1, 3);
 		const d = describeLamp(await resolveLampModel(lamp.model, member), vesselPowerW(lamp), undefined, lamp.powerW, exposureOf(lamp));
 		const c = d.cautions.find((x) => x.code === 'exposure-at-distance')!;
-		expect(c.text).toMatch(/^At 30 cm the lamp gives 5\.7 W m⁻²/);
+		expect(c.text).toMatch(/^At 30 cm the lamp gives 5\.66 W m⁻²/);
 		expect(d.cautions.some((x) => x.code === 'blue-light')).toBe(true);
 
 		// a radiometer reading replaces the model; clearing the distance clears the caution

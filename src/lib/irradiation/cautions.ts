@@ -5,14 +5,17 @@
  * to local regulations and the institution's safety officer.
  */
 import { actinicEffectiveFraction } from './icnirp';
-import { exposureAtDistance, formatExposureTime, type ExposureAtDistance, type ExposureInput } from './exposure';
+import { formatDuration, formatSig } from '../format';
+import { exposureAtDistance, type ExposureAtDistance, type ExposureInput } from './exposure';
+import { integrateSpectrum, type EmissionSpectrum } from './spectrumIntegral';
+
+export type { EmissionSpectrum };
 import { CAUTION_GRID, lampSpectrum, type LampModel, type LampType } from './lamps';
 
 export type BandName = 'UV-C' | 'UV-B' | 'UV-A' | 'blue' | 'visible' | 'IR';
 export type CautionSeverity = 'danger' | 'warning' | 'info';
 export interface Caution { code: string; band?: BandName; severity: CautionSeverity; title: string; text: string; source: string }
 export interface BandShare { band: BandName; fromNm: number; toNm: number; powerW: number; fraction: number }
-export interface EmissionSpectrum { wavelengthNm: ArrayLike<number>; powerWPerNm: ArrayLike<number> }
 
 /** CIE/ISO bands: UV-C 100–280, UV-B 280–315, UV-A 315–400 nm; blue 400–500; rest of visible to 780; IR beyond. */
 export const SPECTRAL_BANDS: readonly { band: BandName; fromNm: number; toNm: number }[] = [
@@ -27,19 +30,7 @@ const ICNIRP = 'ICNIRP, Health Phys. 87, 171–186 (2004); CIE band limits';
 const PRACTICE = 'common practice';
 
 /** Power (W) between fromNm and toNm: exact integral of the piecewise-linear spectrum. */
-export function powerInRangeW(s: EmissionSpectrum, fromNm: number, toNm: number): number {
-	const x = s.wavelengthNm;
-	const p = s.powerWPerNm;
-	let sum = 0;
-	for (let i = 1; i < x.length; i++) {
-		const a = Math.max(x[i - 1], fromNm);
-		const b = Math.min(x[i], toNm);
-		if (b <= a) continue;
-		const slope = (p[i] - p[i - 1]) / (x[i] - x[i - 1]);
-		sum += ((p[i - 1] + slope * (a - x[i - 1]) + p[i - 1] + slope * (b - x[i - 1])) / 2) * (b - a);
-	}
-	return sum;
-}
+export const powerInRangeW = (s: EmissionSpectrum, fromNm: number, toNm: number): number => integrateSpectrum(s, fromNm, toNm);
 
 /** Bands carrying at least `minFraction` (default 1 %) of the spectrum's power. */
 export function spectralBandShares(s: EmissionSpectrum, minFraction = 0.01): BandShare[] {
@@ -103,7 +94,8 @@ export function cautionsForSpectrum(s: EmissionSpectrum, options: CautionOptions
 	return finish(out);
 }
 
-const sig = (v: number) => (v >= 100 ? v.toFixed(0) : v.toPrecision(2));
+/** A limit time as a person reads it; beyond a working day the limit is not reached in one. */
+const limitTime = (s: number) => (s >= 8 * 3600 ? 'more than an 8 h working day' : formatDuration(s));
 const GROUP: Record<string, string> = { exempt: 'the exempt group', RG1: 'risk group 1', RG2: 'risk group 2', RG3: 'risk group 3' };
 
 /** The irradiance at the stated distance and the ICNIRP limit times (exposure.ts), as one caution. */
@@ -111,15 +103,15 @@ function exposureCaution(e: ExposureAtDistance): Caution {
 	const uv = e.actinicEffectiveWPerM2 > 0 || e.uvaWPerM2 > 0;
 	const actinicShort = e.actinicLimitS !== null && e.actinicLimitS < 8 * 3600;
 	const severity: CautionSeverity = (e.actinicLimitS !== null && e.actinicLimitS < 3600) || e.uvaLimitS !== null ? 'danger' : actinicShort ? 'warning' : 'info';
-	const parts = [`At ${e.distanceCm} cm the lamp gives ${sig(e.irradianceWPerM2)} W m⁻² (${e.basisLabel}).`];
+	const parts = [`At ${e.distanceCm} cm the lamp gives ${formatSig(e.irradianceWPerM2)} W m⁻² (${e.basisLabel}).`];
 	if (uv) {
 		parts.push(
-			`Actinic UV ${e.actinicEffectiveWPerM2.toPrecision(2)} W m⁻² effective: the ICNIRP daily limit of 30 J m⁻² is reached in ${e.actinicLimitS !== null ? formatExposureTime(e.actinicLimitS) : '—'}.`,
-			`UV-A ${e.uvaWPerM2.toPrecision(2)} W m⁻²: ${e.uvaLimitS !== null ? `the eye limit of 10 kJ m⁻² is reached in ${formatExposureTime(e.uvaLimitS)}` : 'below the 10 W m⁻² limit for long exposures'}.`,
+			`Actinic UV ${formatSig(e.actinicEffectiveWPerM2, 2)} W m⁻² effective: the ICNIRP daily limit of 30 J m⁻² is reached in ${e.actinicLimitS !== null ? limitTime(e.actinicLimitS) : '—'}.`,
+			`UV-A ${formatSig(e.uvaWPerM2, 2)} W m⁻²: ${e.uvaLimitS !== null ? `the eye limit of 10 kJ m⁻² is reached in ${limitTime(e.uvaLimitS)}` : 'below the 10 W m⁻² limit for long exposures'}.`,
 			`For orientation only, IEC 62471 would put these values in ${GROUP[e.actinicGroup]} (actinic UV) and ${GROUP[e.uvaGroup]} (UV-A, eye); the standard assesses at its own distance.`
 		);
 	}
-	if (e.blueWPerM2 >= 0.01 * e.irradianceWPerM2) parts.push(`400–500 nm: ${sig(e.blueWPerM2)} W m⁻²; the retinal blue-light hazard depends on the source's radiance, not assessed here: never look into the source.`);
+	if (e.blueWPerM2 >= 0.01 * e.irradianceWPerM2) parts.push(`400–500 nm: ${formatSig(e.blueWPerM2)} W m⁻²; the retinal blue-light hazard depends on the source's radiance, not assessed here: never look into the source.`);
 	return {
 		code: 'exposure-at-distance',
 		severity,

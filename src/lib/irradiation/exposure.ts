@@ -16,24 +16,7 @@
  * distances, not at the one stated here (REFERENCE.md §7, from memory).
  */
 import { icnirpActinicWeighting } from './icnirp';
-
-/** An emission spectrum on any grid, W nm⁻¹ (the shape cautions.ts uses). */
-interface Spectrum { wavelengthNm: ArrayLike<number>; powerWPerNm: ArrayLike<number> }
-
-/** ∫ w(λ)·P(λ) dλ between fromNm and toNm, trapezoid on the spectrum's own grid (samples inside the range). */
-function integral(s: Spectrum, fromNm: number, toNm: number, w: (nm: number) => number = () => 1): number {
-	const x = s.wavelengthNm;
-	const p = s.powerWPerNm;
-	let sum = 0;
-	for (let i = 1; i < x.length; i++) {
-		const a = Math.max(x[i - 1], fromNm);
-		const b = Math.min(x[i], toNm);
-		if (b <= a) continue;
-		const at = (l: number) => (p[i - 1] + ((p[i] - p[i - 1]) * (l - x[i - 1])) / (x[i] - x[i - 1])) * w(l);
-		sum += 0.5 * (at(a) + at(b)) * (b - a);
-	}
-	return sum;
-}
+import { integrateSpectrum as integral, type EmissionSpectrum } from './spectrumIntegral';
 
 export type IrradianceBasis = 'measured' | 'lambertian-model' | 'point-source-model';
 
@@ -76,7 +59,17 @@ export const UVA_LONG_LIMIT_W_M2 = 10;
 
 const group = (v: number, limits: [number, number, number]): RiskGroup => (v < limits[0] ? 'exempt' : v < limits[1] ? 'RG1' : v < limits[2] ? 'RG2' : 'RG3');
 
-/** Geometry model for a lamp type when no measured irradiance is given. */
+/** Short form of each basis, for the number on a page. */
+export const EXPOSURE_BASIS_SHORT: Record<IrradianceBasis, string> = {
+	measured: 'measured (radiometer)',
+	'lambertian-model': 'model: Lambertian emitter, E = P/(π d²)',
+	'point-source-model': 'model: point source, E = P/(4π d²)'
+};
+
+/**
+ * Geometry model for a lamp type when no measured irradiance is given: LEDs and lamps known only by a measured
+ * spectrum (which may be an LED) get the Lambertian model, the more cautious of the two (4× the point source).
+ */
 export function irradianceModelFor(lampType: string | undefined): 'lambertian-model' | 'point-source-model' {
 	return lampType === 'led' || lampType === 'spectrum' ? 'lambertian-model' : 'point-source-model';
 }
@@ -85,7 +78,7 @@ export function irradianceModelFor(lampType: string | undefined): 'lambertian-mo
  * Exposure at `input.distanceCm` from a lamp whose emitted spectrum is `s` (W nm⁻¹, what the lamp itself emits).
  * Returns null for lasers (a beam: its class decides) and for a non-positive distance or a spectrum without power.
  */
-export function exposureAtDistance(s: Spectrum, input: ExposureInput, lampType?: string): ExposureAtDistance | null {
+export function exposureAtDistance(s: EmissionSpectrum, input: ExposureInput, lampType?: string): ExposureAtDistance | null {
 	if (lampType === 'laser') return null;
 	const d = input.distanceCm / 100;
 	if (!(d > 0)) return null;
@@ -119,13 +112,4 @@ export function exposureAtDistance(s: Spectrum, input: ExposureInput, lampType?:
 		actinicGroup: group(actinic, [0.001, 0.003, 0.03]),
 		uvaGroup: group(uva, [10, 33, 100])
 	};
-}
-
-/** A duration as a person reads it: "40 s", "12 min", "2.5 h", "more than a working day". */
-export function formatExposureTime(s: number): string {
-	if (s >= 8 * 3600) return 'more than an 8 h working day';
-	if (s >= 3600) return `${(s / 3600).toPrecision(2)} h`;
-	if (s >= 60) return `${Math.round(s / 60)} min`;
-	if (s >= 1) return `${s.toPrecision(2)} s`;
-	return 'under a second';
 }
