@@ -128,4 +128,21 @@ describe('Library storage migrations', () => {
 		while ((await pendingNames()).length && MINE.test((await pendingNames())[0])) await k.migrate.up();
 		expect(Number((await k('spectrum_points').count({ n: '*' }))[0].n)).toBe(4 + 4 + 8);
 	}, 300_000);
+
+	it('implied originals (only the normalised pair stored) are written out when that migration is rolled back', async () => {
+		await k.migrate.latest();
+		const spectra = await k('spectra').orderBy('id').select('id');
+		// as the app now stores a file whose series are the normalised ones: series 2 and 3 only
+		await k('spectrum_points').where({ spectrum_id: spectra[0].id }).whereIn('series', [0, 1]).delete();
+		const normalised = await k('spectrum_points').where({ spectrum_id: spectra[0].id }).whereIn('series', [2, 3]).orderBy(['series', 'chunk_no']).select('series', 'data');
+		expect((await completedNames()).at(-1)).toMatch(/_implied_original_points\.ts$/);
+		await k.migrate.down();
+		const after = await k('spectrum_points').where({ spectrum_id: spectra[0].id }).orderBy(['series', 'chunk_no']).select('series', 'data');
+		expect(after.map((r: { series: number }) => r.series)).toEqual([0, 1, 2, 3]);
+		expect(sha(after[0].data)).toBe(sha(normalised[0].data));
+		expect(sha(after[1].data)).toBe(sha(normalised[1].data));
+		// the other spectra kept their own four series, untouched
+		expect(Number((await k('spectrum_points').count({ n: '*' }))[0].n)).toBe(4 + 4 + 8);
+		await k.migrate.latest();
+	}, 300_000);
 });

@@ -15,14 +15,16 @@ import { zodToApiError } from '../../src/lib/server/http';
 import { searchSpectra } from '../../src/lib/server/services/spectraSearch';
 import { similarSpectra } from '../../src/lib/server/services/spectraSimilar';
 import { resetVectorCache, VectorCache } from '../../src/lib/server/services/spectraVectorCache';
-import { absorbsAt, absorbsAtWithMax, transparentAbove, transparentAboveFromFacts, vectorFacts } from '../../src/lib/server/services/spectraVectorFilters';
+import { absorbsAt, absorbsAtValue, transparentAbove, transparentAboveFromFacts, vectorAt, vectorFacts } from '../../src/lib/server/services/spectraVectorFilters';
 import { stopSimilarityWorker, topKInProcess, topKInWorker } from '../../src/lib/server/services/similarityKernel';
 import { cosineSimilarity, rankSimilar } from '../../src/lib/spectra/similarity';
-import { bufferToVector, SEARCH_LENGTH } from '../../src/lib/spectra/grid';
-import { apiFailure, csvOf, gauss, localsOf, resetSpectraWorld, upload } from './spectraTestKit';
+import { bufferToVector, SEARCH_LENGTH, vectorToBuffer } from '../../src/lib/spectra/grid';
+import type { VectorCacheRow } from '../../src/lib/server/db/spectra';
+import { apiFailure, csvOf, gauss, localsOf, resetSpectraWorld, rowCounts, upload } from './spectraTestKit';
 import { prng } from '../../src/lib/prng';
 
 const ids: Record<string, number> = {};
+const resetGroupIds = async () => ({ groupA: Number((await db()('groups').where({ slug: 'spx-a' }).first('id')).id) });
 beforeAll(async () => {
 	await resetSpectraWorld();
 	const add = async (key: string, name: string, f: (x: number) => number, meta: Record<string, unknown> = {}) =>
@@ -42,6 +44,20 @@ const member2 = (params: Record<string, string>) => searchSpectra(localsOf('memb
 
 /** Deterministic pseudo-random numbers (mulberry32, src/lib/prng.ts). */
 const rng = prng;
+
+/** A Library index row for a bare vector (invented test data). */
+const cacheRow = (id: number, v: Float32Array): VectorCacheRow => ({
+	id, group_id: 1, owner_id: null, name: `vector ${id}`, synonyms: '[]', cas: null, part: 'substrate', kind: 'absorption', solvent: null, visibility: 'group',
+	y_unit: 'absorbance', concentration_m: null, path_cm: null, lambda_max_nm: null, deleted_at: null, created_at: new Date(0), updated_at: new Date(0), change_seq: 1,
+	vector: Buffer.from(vectorToBuffer(v))
+});
+
+/** An index holding the vectors as slots 0…n−1 (ids 100,000 + slot), packed as the app packs them. */
+function packedIndex(vs: Float32Array[]): VectorCache {
+	const c = new VectorCache();
+	vs.forEach((v, s) => c.put(cacheRow(100_000 + s, v)));
+	return c;
+}
 
 function randomVectors(n: number, seed: number): Float32Array[] {
 	const r = rng(seed);
@@ -75,8 +91,10 @@ describe('storage: side tables, chunks, one file per upload', () => {
 		expect(Number(chunks)).toBe(Math.ceil(bytes.byteLength / FILE_CHUNK_BYTES));
 		const row = (await findSpectrumById(r.items[1].id))!;
 		expect(Buffer.compare((await withFileBytes(row)).file_bytes, Buffer.from(bytes))).toBe(0);
-		const [{ n: pointRows }] = await k('spectrum_points').where({ spectrum_id: row.id, series: 1 }).count({ n: '*' });
+		// the file is in nm, ascending, absorbance: its own series are the normalised ones, stored once (series 2, 3)
+		const [{ n: pointRows }] = await k('spectrum_points').where({ spectrum_id: row.id, series: 3 }).count({ n: '*' });
 		expect(Number(pointRows)).toBe(Math.ceil(70_000 / POINT_CHUNK_VALUES));
+		expect(Number((await k('spectrum_points').where({ spectrum_id: row.id }).whereIn('series', [0, 1]).count({ n: '*' }))[0].n)).toBe(0);
 		const y = bufferToFloat64(row.y_original);
 		expect(y.length).toBe(70_000);
 		// the second column as written in the file, exactly (toPrecision(9) text → the same double)
@@ -131,6 +149,80 @@ describe('storage: side tables, chunks, one file per upload', () => {
 			delete process.env.WINDOWSILL_MAX_WRITE_BYTES;
 		}
 		expect(await count()).toBe(before);
+	});
+});
+
+describe('storing an upload: one round trip, or step by step — the same rows', () => {
+	const file = (f: (x: number) => number) => csvOf('wavelength (nm),epsilon (M-1 cm-1),absorbance', f).replace(/^(\d+),([^\n]+)$/gm, (_, x, y) => `${x},${y},${(Number(y) / 20000).toPrecision(8)}`);
+	const strip = (i: Record<string, unknown>) => {
+		const { id: _, createdAt: _c, updatedAt: _u, fileName: _f, fileSha256: _h, ...rest } = i;
+		return rest;
+	};
+	it('a two-column file with tags stores the same spectra, points, vector, revisions and tags either way', async () => {
+		const { storeSpectra } = await import('../../src/lib/server/services/spectraStore');
+		const { prepareSpectra } = await import('../../src/lib/server/services/spectraPrepare');
+		const { groupA } = await resetGroupIds();
+		const answers = [];
+		for (const oneTrip of [true, false]) {
+			// one trailing newline more the second time: the same spectra, another file (hash)
+			const bytes = new TextEncoder().encode(file((x) => gauss(x, 380, 20, 12000)) + (oneTrip ? '' : '\n'));
+			const name = `scale-store-${oneTrip}.csv`;
+			const p = prepareSpectra(bytes, name, { concentrationM: 1e-4, pathCm: 1 });
+			const r = await storeSpectra(db(), { groupId: groupA, ownerId: localsOf('member').user!.id, bytes, filename: name, meta: { part: 'substrate', tags: ['harbour-store', 'second tag'], names: ['ε column', 'A column'] }, ...p }, { oneTrip });
+			expect(r.items).toHaveLength(2);
+			const got = [];
+			for (const it of r.items) {
+				const row = (await findSpectrumById(it.id))!;
+				const revs = await db()('spectrum_revisions').where({ spectrum_id: it.id }).select('version', 'action', 'user_id');
+				const tags = (await db()('spectrum_tags as st').join('tags as t', 't.id', 'st.tag_id').where('st.spectrum_id', it.id).orderBy('t.name').select('t.name')).map((t: { name: string }) => t.name);
+				got.push({ api: strip(it as unknown as Record<string, unknown>), x: row.x_original.toString('hex'), y: row.y_original.toString('hex'), xn: row.x_nm.toString('hex'), yn: row.y_normalised.toString('hex'), v: row.search_vector.toString('hex'), revs, tags, seq: Number((await db()('spectra').where({ id: it.id }).first('change_seq')).change_seq) });
+			}
+			answers.push(got);
+		}
+		const [one, steps] = answers;
+		for (let i = 0; i < 2; i++) {
+			const { seq: s1, ...a } = one[i];
+			const { seq: s2, ...b } = steps[i];
+			expect(a).toEqual(b);
+			expect(s1).toBeGreaterThan(0);
+			expect(s2).toBeGreaterThan(s1);
+		}
+		expect(one[0].tags).toEqual(['harbour-store', 'second tag']);
+		expect(one[0].revs).toEqual([{ version: 1, action: 'create', user_id: localsOf('member').user!.id }]);
+		// both spectra of one file share one change number (one transaction)
+		expect(one[0].seq).toBe(one[1].seq);
+	});
+	it('a duplicate in the one-trip store is refused by the unique key: 409 naming the spectrum, nothing written', async () => {
+		const bytes = file((x) => gauss(x, 455, 18, 9000));
+		const first = await upload('member', 'scale-dup.csv', bytes, { concentrationM: 1e-4, pathCm: 1 });
+		const before = await rowCounts();
+		const files = Number((await db()('spectrum_files').count({ n: '*' }))[0].n);
+		const seq = Number((await db()('library_state').where({ id: 1 }).first('change_seq')).change_seq);
+		const e = await apiFailure(upload('member', 'scale-dup-again.csv', bytes, { concentrationM: 1e-4, pathCm: 1, tags: ['never-stored'] }));
+		expect(e.status).toBe(409);
+		expect(e.extra.existingId).toBe(first.items[0].id);
+		expect(await rowCounts()).toEqual(before);
+		expect(Number((await db()('spectrum_files').count({ n: '*' }))[0].n)).toBe(files);
+		expect(await db()('tags').where({ name: 'never-stored' }).first()).toBeUndefined();
+		expect(Number((await db()('library_state').where({ id: 1 }).first('change_seq')).change_seq)).toBe(seq);
+	});
+	it("an edit that renormalises writes the implied originals out first: the file's own numbers never change", async () => {
+		const { patchSpectrum } = await import('../../src/lib/server/services/spectraEdit');
+		const r = await upload('member', 'scale-implied.csv', csvOf('wavelength (nm),absorbance', (x) => gauss(x, 512, 25, 0.8)), {});
+		const id = r.items[0].id;
+		const k = db();
+		expect((await k('spectrum_points').where({ spectrum_id: id }).orderBy('series').pluck('series'))).toEqual([2, 3]);
+		const before = (await findSpectrumById(id))!;
+		expect(Buffer.compare(before.x_original, before.x_nm)).toBe(0);
+		expect(Buffer.compare(before.y_original, before.y_normalised)).toBe(0);
+		const yFile = before.y_original.toString('hex');
+		// absorbance → with c and l known the stored curve becomes ε (a renormalising edit)
+		await patchSpectrum(localsOf('member'), String(id), { concentrationM: 2e-5, pathCm: 1, version: before.version });
+		const after = (await findSpectrumById(id))!;
+		expect((await k('spectrum_points').where({ spectrum_id: id }).orderBy('series').pluck('series'))).toEqual([0, 1, 2, 3]);
+		expect(after.y_original.toString('hex')).toBe(yFile);
+		expect(after.y_unit).not.toBe(before.y_unit);
+		expect(Buffer.compare(after.y_normalised, before.y_normalised)).not.toBe(0);
 	});
 });
 
@@ -214,7 +306,7 @@ describe('vector filters from precomputed facts give the same answers as the ful
 			const facts = vectorFacts(v);
 			for (const wl of [190, 250, 300.5, 350, 420, 450.25, 500, 600, 700, 900, 1099.5, 1100]) {
 				for (const rule of [{}, { minAbsorbance: 0.1 }, { minEpsilon: 5000 }, { minAbsorbance: 0.05, minEpsilon: 20000 }]) {
-					expect(absorbsAtWithMax(row, v, facts.max, { wavelengthNm: wl, ...rule })).toBe(absorbsAt(row, v, { wavelengthNm: wl, ...rule }));
+					expect(absorbsAtValue(row, vectorAt(v, wl), facts.max, { wavelengthNm: wl, ...rule })).toBe(absorbsAt(row, v, { wavelengthNm: wl, ...rule }));
 					checked++;
 				}
 				expect(transparentAboveFromFacts(row.kind, facts, wl)).toBe(transparentAbove(row, v, wl));
@@ -222,22 +314,45 @@ describe('vector filters from precomputed facts give the same answers as the ful
 		}
 		expect(checked).toBe(300 * 12 * 4);
 	});
+	it('the packed index keeps each vector exactly: whole vector, value at λ, facts; rewrites in place or at the end', () => {
+		const vs = randomVectors(300, 6);
+		const c = packedIndex(vs);
+		let floats = 0;
+		for (const [s, v] of vs.entries()) {
+			expect(Array.from(c.vector(s))).toEqual(Array.from(v));
+			for (const wl of [189, 190, 250, 300.5, 450.25, 799.75, 1099.5, 1100, 1101]) expect(c.valueAt(s, wl)).toBe(vectorAt(v, wl));
+			expect(c.max[s]).toBe(vectorFacts(v).max);
+			let first = v.findIndex((x) => x !== 0);
+			let last = v.length - 1;
+			while (last >= 0 && v[last] === 0) last--;
+			if (first < 0) first = last + 1;
+			expect(c.vecLen[s]).toBe(last - first + 1);
+			floats += last - first + 1;
+		}
+		// only the measured stretches are held (randomVectors: every 7th vector all zeros)
+		expect(c.used).toBe(floats);
+		// a shorter vector is rewritten in place, a longer one at the end; both read back exactly
+		const short = new Float32Array(SEARCH_LENGTH);
+		short.fill(0.5, 300, 310);
+		const off = c.vecOff[3];
+		c.put(cacheRow(100_003, short));
+		expect(c.vecOff[3]).toBe(off);
+		expect(Array.from(c.vector(3))).toEqual(Array.from(short));
+		const long = new Float32Array(SEARCH_LENGTH).fill(0.25);
+		expect(c.vecLen[7]).toBe(0); // every 7th vector is all zeros
+		c.put(cacheRow(100_007, long));
+		expect(c.vecOff[7]).toBe(floats);
+		expect(Array.from(c.vector(7))).toEqual(Array.from(long));
+		expect(c.wasted).toBeGreaterThan(0);
+	});
 });
 
 describe('similarity: one pass, top-k by a heap, same answers as rankSimilar within 1e-6', () => {
 	it('2,000 random vectors, 5 targets, k = 1, 10, 50: in-process and worker agree with the core', { timeout: 120_000 }, async () => {
 		const vs = randomVectors(2000, 9);
 		const n = vs.length;
-		const vectors = new Float32Array(new SharedArrayBuffer(n * SEARCH_LENGTH * 4));
-		const inv = new Float64Array(new SharedArrayBuffer(n * 8));
-		const idArr = new Int32Array(new SharedArrayBuffer(n * 4));
-		vs.forEach((v, s) => {
-			vectors.set(v, s * SEARCH_LENGTH);
-			let ss = 0;
-			for (const x of v) ss += x * x;
-			inv[s] = ss > 0 ? 1 / Math.sqrt(ss) : 0;
-			idArr[s] = 100_000 + s;
-		});
+		const c = packedIndex(vs);
+		const idArr = c.ids;
 		for (const t of [1, 2, 7, 500, 1999]) {
 			const slots = Int32Array.from({ length: n }, (_, s) => s).filter((s) => s !== t);
 			// the core's answer, candidates newest (highest id) first as the Library lists them
@@ -247,7 +362,7 @@ describe('similarity: one pass, top-k by a heap, same answers as rankSimilar wit
 			for (const k of [1, 10, 50]) {
 				// "today's" answer: plain cosine over whole vectors (cosineSimilarity), ties by higher id first
 				const want = cands.map((c) => ({ id: c.id, score: cosineSimilarity(vs[t], c.vector) })).sort((p, q) => q.score - p.score || q.id - p.id).slice(0, k);
-				const job = { vectors, len: SEARCH_LENGTH, target: vs[t], targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: inv, ids: idArr, k };
+				const job = { vectors: c.vectors, offs: c.vecOff, froms: c.vecFrom, lens: c.vecLen, target: vs[t], targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: c.invNorm, ids: idArr, k };
 				for (const got of [topKInProcess(job), await topKInWorker(job)]) {
 					expect(got).toHaveLength(want.length);
 					for (let i = 0; i < want.length; i++) {

@@ -9,6 +9,7 @@
  */
 import type { Knex } from 'knex';
 import { db } from './index';
+import { insertSql, sqlValue, sqlVar } from './sqlText';
 import { FILE_CHUNK_BYTES, POINT_CHUNK_VALUES, POINT_SERIES, bufferToFloat64, chunkBytes, insertBatched, type PointSeries } from './spectraBlobs';
 
 /** A `spectra` row with its points and vector (snake_case; JSON columns as text; BLOBs as Buffers). */
@@ -244,6 +245,17 @@ function splitRow<T extends Record<string, unknown>>(row: T) {
 }
 
 /**
+ * The side values of a NEW spectrum as stored: when the file's own series are byte for byte the
+ * normalised ones (a file in nm, ascending, in the stored unit — most UV–vis exports), only the
+ * normalised pair is written and the original pair is implied (sideDataOf fills it back in).
+ */
+function storedSide(side: Partial<Record<PointSeries | 'search_vector', Buffer>>): Partial<Record<PointSeries | 'search_vector', Buffer>> {
+	const { x_original: xo, y_original: yo, ...rest } = side;
+	if (xo && yo && side.x_nm && side.y_normalised && xo.equals(side.x_nm) && yo.equals(side.y_normalised)) return rest;
+	return side;
+}
+
+/**
  * Inserts spectra (one metadata row each) and their points and vectors with
  * multi-row inserts batched below max_allowed_packet; returns the ids in order.
  */
@@ -267,7 +279,8 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 			ids.push(Number(id));
 		}
 	}
-	split.forEach(({ side }, i) => {
+	split.forEach(({ side: given }, i) => {
+		const side = storedSide(given);
 		const sid = ids[i];
 		for (const s of POINT_SERIES) if (side[s]) points.push(...pointRows(sid, s, side[s]!));
 		if (side.search_vector) vectors.push({ spectrum_id: sid, vector: side.search_vector });
@@ -275,6 +288,94 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 	await insertBatched(trx, 'spectrum_points', points);
 	await insertBatched(trx, 'spectrum_vectors', vectors);
 	return ids;
+}
+
+let consecutiveIds: boolean | null = null;
+
+/**
+ * Whether one multi-row INSERT gets consecutive auto-increment ids: innodb_autoinc_lock_mode 0 or 1
+ * ("simple inserts" take their whole range at once) and an increment of 1. Read once per process.
+ */
+export async function multiRowIdsAreConsecutive(conn: Knex | Knex.Transaction): Promise<boolean> {
+	if (consecutiveIds !== null) return consecutiveIds;
+	try {
+		const [rows] = await conn.raw('SELECT @@innodb_autoinc_lock_mode AS mode, @@auto_increment_increment AS step');
+		consecutiveIds = Number(rows[0]?.mode) <= 1 && Number(rows[0]?.step) === 1;
+	} catch {
+		consecutiveIds = false;
+	}
+	return consecutiveIds;
+}
+
+/** Bytes the one-trip store of a file would send (BLOBs travel as hex): compare with statementBudget(). */
+export function oneTripBytes(bytes: Uint8Array, rows: NewSpectrumRow[]): number {
+	let n = 2 * bytes.byteLength + 4096;
+	for (const r of rows) {
+		for (const [k, v] of Object.entries(r)) n += v instanceof Uint8Array ? 2 * v.byteLength + 16 : k.length + String(v ?? 'NULL').length * 2 + 8;
+	}
+	return n;
+}
+
+/** The read-back of storeNewFileOneTrip (constant text, compiled once). */
+let readBackSql: string | undefined;
+
+/**
+ * Stores a new file and its spectra in ONE round trip: a MariaDB compound statement (BEGIN NOT
+ * ATOMIC … END is a single statement, so the connection needs no multi-statement mode) that runs its
+ * own transaction — an exit handler rolls back and re-raises any error, a duplicate (ER_DUP_ENTRY
+ * on group + file hash + block) included, so nothing is written — and inside it stamps the change
+ * number (first, as every writer does), inserts the file and its chunks, the spectra in one
+ * multi-row insert, their points, vectors, `create` revisions and tags keyed on LAST_INSERT_ID(),
+ * reads the new rows back as summaries (a result set of the same statement) and commits.
+ * Only for servers where multi-row ids are consecutive (multiRowIdsAreConsecutive) and files that
+ * fit one statement (oneTripBytes ≤ statementBudget).
+ * @returns the summary rows in insertion order
+ */
+export async function storeNewFileOneTrip(
+	conn: Knex,
+	file: { groupId: number; sha256: string; fileName: string; bytes: Uint8Array },
+	rows: NewSpectrumRow[],
+	extra: { revisionUserId: string | null; tagNames: string[] }
+): Promise<SpectrumRow[]> {
+	if (!rows.length) throw new Error('storeNewFileOneTrip: no spectra');
+	const chunks = chunkBytes(file.bytes, FILE_CHUNK_BYTES);
+	const split = rows.map((row) => splitRow(row as unknown as Record<string, unknown>));
+	const points: Record<string, unknown>[] = [];
+	const vectors: Record<string, unknown>[] = [];
+	split.forEach(({ side: given }, i) => {
+		const side = storedSide(given);
+		for (const s of POINT_SERIES) if (side[s]) for (const p of pointRows(0, s, side[s]!)) points.push({ ...p, spectrum_id: sqlVar('ws_first', i) });
+		if (side.search_vector) vectors.push({ spectrum_id: sqlVar('ws_first', i), vector: side.search_vector });
+	});
+	const statements = [
+		'UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1',
+		// no row 1: NULL, which the NOT NULL change_seq of the spectra insert refuses
+		'SET @ws_seq = IF(ROW_COUNT() = 1, LAST_INSERT_ID(), NULL)',
+		insertSql('spectrum_files', [{ group_id: file.groupId, sha256: file.sha256, file_name: file.fileName.slice(0, 255), byte_count: file.bytes.byteLength, chunk_count: chunks.length }]),
+		'SET @ws_file = LAST_INSERT_ID()',
+		insertSql('spectrum_file_chunks', chunks.map((data, chunk_no) => ({ file_id: sqlVar('ws_file'), chunk_no, data }))),
+		insertSql('spectra', split.map(({ meta }) => ({ ...meta, file_id: sqlVar('ws_file'), change_seq: sqlVar('ws_seq') }))),
+		'SET @ws_first = LAST_INSERT_ID()'
+	];
+	if (points.length) statements.push(insertSql('spectrum_points', points));
+	if (vectors.length) statements.push(insertSql('spectrum_vectors', vectors));
+	statements.push(insertSql('spectrum_revisions', rows.map((_, i) => ({ spectrum_id: sqlVar('ws_first', i), version: 1, action: 'create', user_id: extra.revisionUserId, changes: null }))));
+	if (extra.tagNames.length) {
+		statements.push(insertSql('tags', extra.tagNames.map((name) => ({ name })), 'IGNORE'));
+		statements.push(`INSERT INTO spectrum_tags (spectrum_id, tag_id) SELECT s.id, t.id FROM spectra s JOIN tags t ON t.name IN (${extra.tagNames.map(sqlValue).join(', ')}) WHERE s.file_id = @ws_file`);
+	}
+	// the read-back before COMMIT: a failure anywhere, this SELECT included, leaves nothing written
+	statements.push((readBackSql ??= summaryQuery(conn).whereRaw('s.file_id = @ws_file').orderBy('s.id').select([...SUMMARY_COLUMNS, conn.raw('@ws_first AS ws_first')]).toString()));
+	statements.push('COMMIT');
+	const sql = `BEGIN NOT ATOMIC\nDECLARE EXIT HANDLER FOR SQLEXCEPTION BEGIN ROLLBACK; RESIGNAL; END;\nSTART TRANSACTION;\n${statements.join(';\n')};\nEND`;
+	// no bindings: the text is complete (db/sqlText.ts), so neither knex nor mysql2 scans it again
+	const [results] = await conn.raw(sql);
+	// mysql2: the result set, then the OK packet of the statement
+	const got: (SpectrumRow & { ws_first: number })[] = Array.isArray(results[0]) ? results[0] : results;
+	const first = Number(got[0]?.ws_first);
+	if (got.length !== rows.length || got.some((r, i) => Number(r.id) !== first + i))
+		throw new Error(`storeNewFileOneTrip: the spectra of ${file.fileName} did not get consecutive ids (${got.map((r) => r.id).join(', ')} from ${first})`);
+	return got.map(({ ws_first: _, ...r }) => r as SpectrumRow);
 }
 
 /** Inserts one spectrum; returns its id. */
@@ -299,7 +400,15 @@ export async function sideDataOf(ids: number[], conn: Knex | Knex.Transaction, w
 			const k = `${r.spectrum_id}:${r.series}`;
 			parts.set(k, [...(parts.get(k) ?? []), r.data]);
 		}
-		for (const id of ids) for (let s = 0; s < POINT_SERIES.length; s++) out.get(id)![POINT_SERIES[s]] = Buffer.concat(parts.get(`${id}:${s}`) ?? []);
+		for (const id of ids) {
+			const o = out.get(id)!;
+			for (let s = 0; s < POINT_SERIES.length; s++) o[POINT_SERIES[s]] = Buffer.concat(parts.get(`${id}:${s}`) ?? []);
+			// no original pair stored: the file's series were the normalised ones (storedSide)
+			if (!parts.has(`${id}:0`) && !parts.has(`${id}:1`)) {
+				o.x_original = o.x_nm;
+				o.y_original = o.y_normalised;
+			}
+		}
 	}
 	if (what.vector) {
 		const rows: { spectrum_id: number; vector: Buffer }[] = await conn('spectrum_vectors').whereIn('spectrum_id', ids).select('spectrum_id', 'vector');
@@ -391,6 +500,7 @@ export async function updateSpectrumIfVersion(trx: Knex.Transaction, id: number,
 		.where({ id, version })
 		.update({ ...meta, version: version + 1, change_seq: seq, updated_at: trx.fn.now() });
 	if (n !== 1) return n;
+	if ((side.x_nm || side.y_normalised) && !side.x_original && !side.y_original) await keepImpliedOriginals(trx, id);
 	for (const s of POINT_SERIES) {
 		if (!side[s]) continue;
 		await trx('spectrum_points').where({ spectrum_id: id, series: POINT_SERIES.indexOf(s) }).delete();
@@ -401,6 +511,22 @@ export async function updateSpectrumIfVersion(trx: Knex.Transaction, id: number,
 		await trx('spectrum_vectors').insert({ spectrum_id: id, vector: side.search_vector });
 	}
 	return n;
+}
+
+/**
+ * Before the normalised series of a spectrum are rewritten: if its original pair is implied (not
+ * stored, storedSide), write it out from the normalised pair as it is now, so the file's own
+ * numbers never change with an edit.
+ */
+export async function keepImpliedOriginals(trx: Knex.Transaction, id: number): Promise<void> {
+	const x = POINT_SERIES.indexOf('x_original');
+	const y = POINT_SERIES.indexOf('y_original');
+	const has = await trx('spectrum_points').where({ spectrum_id: id }).whereIn('series', [x, y]).first('series');
+	if (has) return;
+	await trx.raw(
+		'INSERT INTO spectrum_points (spectrum_id, series, chunk_no, data) SELECT spectrum_id, CASE series WHEN ? THEN ? ELSE ? END, chunk_no, data FROM spectrum_points WHERE spectrum_id = ? AND series IN (?, ?)',
+		[POINT_SERIES.indexOf('x_nm'), x, y, id, POINT_SERIES.indexOf('x_nm'), POINT_SERIES.indexOf('y_normalised')]
+	);
 }
 
 /** What the Library index (services/spectraVectorCache.ts) reads of each spectrum. */

@@ -1,6 +1,8 @@
 /**
- * Top-k cosine similarity in one pass over a contiguous Float32Array of vectors (row-major, `len`
- * values per slot) with the inverse L2 norm of each slot precomputed: score = (t · v)·‖t‖⁻¹·‖v‖⁻¹,
+ * Top-k cosine similarity in one pass over a contiguous Float32Array of packed vectors (slot s: its
+ * measured stretch, `lens[s]` values from grid index `froms[s]`, at `offs[s]`; 0 elsewhere, so the
+ * dot product runs over the stretch only) with the inverse L2 norm of each slot precomputed:
+ * score = (t · v)·‖t‖⁻¹·‖v‖⁻¹,
  * the same number as cosineSimilarity() of the spectra core (which is scale-invariant), summed in
  * Float64 with four accumulators (a different summation order: differences ~1e-15, far below 1e-6). The best `k` are kept in a binary min-heap ordered by (score, id); ties go to the higher
  * id, as in a stable sort of candidates listed newest first.
@@ -11,15 +13,15 @@
 import { Worker } from 'node:worker_threads';
 
 const KERNEL_SOURCE = String.raw`
-function dotAt(vectors, off, target, len) {
-	var a0 = 0, a1 = 0, a2 = 0, a3 = 0, i = 0, n4 = len - (len & 3);
+function dotAt(vectors, off, target, from, n) {
+	var a0 = 0, a1 = 0, a2 = 0, a3 = 0, i = 0, n4 = n - (n & 3);
 	for (; i < n4; i += 4) {
-		a0 += target[i] * vectors[off + i];
-		a1 += target[i + 1] * vectors[off + i + 1];
-		a2 += target[i + 2] * vectors[off + i + 2];
-		a3 += target[i + 3] * vectors[off + i + 3];
+		a0 += target[from + i] * vectors[off + i];
+		a1 += target[from + i + 1] * vectors[off + i + 1];
+		a2 += target[from + i + 2] * vectors[off + i + 2];
+		a3 += target[from + i + 3] * vectors[off + i + 3];
 	}
-	for (; i < len; i++) a0 += target[i] * vectors[off + i];
+	for (; i < n; i++) a0 += target[from + i] * vectors[off + i];
 	return (a0 + a1) + (a2 + a3);
 }
 function heapWorse(hs, hi, a, b) { return hs[a] < hs[b] || (hs[a] === hs[b] && hi[a] < hi[b]); }
@@ -37,12 +39,12 @@ function heapDown(hs, hi, size, i) {
 function heapUp(hs, hi, i) {
 	while (i > 0) { var p = (i - 1) >> 1; if (!heapWorse(hs, hi, i, p)) return; heapSwap(hs, hi, i, p); i = p; }
 }
-function topK(vectors, len, target, targetInv, slots, invNorm, ids, k) {
+function topK(vectors, offs, froms, lens, target, targetInv, slots, invNorm, ids, k) {
 	var n = slots.length, hs = new Float64Array(Math.max(k, 1)), hi = new Int32Array(Math.max(k, 1)), size = 0;
 	var ok = targetInv > 0;
 	for (var j = 0; j < n; j++) {
 		var s = slots[j], inv = invNorm[s];
-		var score = ok && inv > 0 ? dotAt(vectors, s * len, target, len) * targetInv * inv : 0;
+		var score = ok && inv > 0 ? dotAt(vectors, offs[s], target, froms[s], lens[s]) * targetInv * inv : 0;
 		var id = ids[s];
 		if (size < k) { hs[size] = score; hi[size] = id; size++; heapUp(hs, hi, size - 1); }
 		else if (k > 0 && (score > hs[0] || (score === hs[0] && id > hi[0]))) { hs[0] = score; hi[0] = id; heapDown(hs, hi, size, 0); }
@@ -54,8 +56,11 @@ function topK(vectors, len, target, targetInv, slots, invNorm, ids, k) {
 }`;
 
 export interface TopKJob {
+	/** the packed stretches (VectorCache.vectors) */
 	vectors: Float32Array;
-	len: number;
+	offs: Int32Array;
+	froms: Int16Array;
+	lens: Int16Array;
 	target: Float32Array;
 	targetInv: number;
 	slots: Int32Array;
@@ -64,13 +69,13 @@ export interface TopKJob {
 	k: number;
 }
 
-type Kernel = (vectors: Float32Array, len: number, target: Float32Array, targetInv: number, slots: Int32Array, invNorm: Float64Array, ids: Int32Array, k: number) => { id: number; score: number }[];
+type Kernel = (vectors: Float32Array, offs: Int32Array, froms: Int16Array, lens: Int16Array, target: Float32Array, targetInv: number, slots: Int32Array, invNorm: Float64Array, ids: Int32Array, k: number) => { id: number; score: number }[];
 
 const kernel = new Function(`${KERNEL_SOURCE}; return topK;`)() as Kernel;
 
 /** Top-k in this thread. */
 export function topKInProcess(j: TopKJob): { id: number; score: number }[] {
-	return kernel(j.vectors, j.len, j.target, j.targetInv, j.slots, j.invNorm, j.ids, j.k);
+	return kernel(j.vectors, j.offs, j.froms, j.lens, j.target, j.targetInv, j.slots, j.invNorm, j.ids, j.k);
 }
 
 const WORKER_SOURCE = `
@@ -79,9 +84,12 @@ ${KERNEL_SOURCE}
 parentPort.on('message', (m) => {
 	try {
 		const vectors = new Float32Array(m.vectorsBuffer, 0, m.vectorsLength);
+		const offs = new Int32Array(m.offsBuffer, 0, m.slotsCapacity);
+		const froms = new Int16Array(m.fromsBuffer, 0, m.slotsCapacity);
+		const lens = new Int16Array(m.lensBuffer, 0, m.slotsCapacity);
 		const invNorm = new Float64Array(m.invNormBuffer, 0, m.slotsCapacity);
 		const ids = new Int32Array(m.idsBuffer, 0, m.slotsCapacity);
-		parentPort.postMessage({ id: m.id, result: topK(vectors, m.len, m.target, m.targetInv, m.slots, invNorm, ids, m.k) });
+		parentPort.postMessage({ id: m.id, result: topK(vectors, offs, froms, lens, m.target, m.targetInv, m.slots, invNorm, ids, m.k) });
 	} catch (e) {
 		parentPort.postMessage({ id: m.id, error: String(e && e.message || e) });
 	}
@@ -118,7 +126,8 @@ function theWorker(): Worker {
  * falls back to this thread if the worker cannot run.
  */
 export async function topKInWorker(j: TopKJob): Promise<{ id: number; score: number }[]> {
-	if (!(j.vectors.buffer instanceof SharedArrayBuffer) || !(j.invNorm.buffer instanceof SharedArrayBuffer) || !(j.ids.buffer instanceof SharedArrayBuffer)) return topKInProcess(j);
+	const shared = [j.vectors, j.offs, j.froms, j.lens, j.invNorm, j.ids].every((a) => a.buffer instanceof SharedArrayBuffer);
+	if (!shared || j.ids.length !== j.offs.length || j.ids.length !== j.froms.length || j.ids.length !== j.lens.length) return topKInProcess(j);
 	let w: Worker;
 	try {
 		w = theWorker();
@@ -132,10 +141,12 @@ export async function topKInWorker(j: TopKJob): Promise<{ id: number; score: num
 			id,
 			vectorsBuffer: j.vectors.buffer,
 			vectorsLength: j.vectors.length,
+			offsBuffer: j.offs.buffer,
+			fromsBuffer: j.froms.buffer,
+			lensBuffer: j.lens.buffer,
 			invNormBuffer: j.invNorm.buffer,
 			idsBuffer: j.ids.buffer,
 			slotsCapacity: j.ids.length,
-			len: j.len,
 			target: j.target,
 			targetInv: j.targetInv,
 			slots: j.slots,

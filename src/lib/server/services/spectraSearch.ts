@@ -31,7 +31,7 @@ import {
 import { tagsOfSpectra } from '../db/tags';
 import { roleAtLeast } from '../policy';
 import { callerOf, canEditSpectrum, type Caller } from './spectraAccess';
-import { absorbsAtWithMax, transparentAboveFromFacts, absorptionAt, type VectorRow } from './spectraVectorFilters';
+import { absorbsAtValue, absorptionOf, transparentAboveFromFacts, type VectorRow } from './spectraVectorFilters';
 import { loadedVectorCache, vectorCache, type VectorCache } from './spectraVectorCache';
 import { spectrumToApi } from './spectraView';
 
@@ -200,9 +200,9 @@ function vectorHit(c: VectorCache, slot: number, q: SpectrumListQuery): Hit | nu
 		if (kind !== 'absorption') return null;
 		const rule = { wavelengthNm: q.absorbsAt, minAbsorbance: q.minAbsorbance, minEpsilon: q.minEpsilon };
 		const row = vectorRowOf(c, slot);
-		const v = c.vector(slot);
-		if (!absorbsAtWithMax(row, v, c.max[slot], rule)) return null;
-		const at = absorptionAt(row, v, rule.wavelengthNm);
+		const y = c.valueAt(slot, rule.wavelengthNm);
+		if (!absorbsAtValue(row, y, c.max[slot], rule)) return null;
+		const at = absorptionOf(row, y);
 		if (at.absorbance !== undefined) hit.absorbanceAt = at.absorbance;
 		if (at.epsilon !== undefined) hit.epsilonAt = at.epsilon;
 	}

@@ -61,7 +61,7 @@ export async function similarSpectra(locals: App.Locals, toParam: string | null,
 	// Two stages: the one-pass kernel over whole vectors picks the candidates (RERANK_POOL of them), then each is
 	// scored on the stretch both spectra are measured, unsaturated and above noise (overlapNm says how long it is).
 	const pool = Math.max(limit * 20, Number(process.env.WINDOWSILL_SIMILAR_RERANK ?? 200));
-	const job: TopKJob = { vectors: cache.vectors, len: cache.len, target, targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: cache.invNorm, ids: cache.ids, k: pool };
+	const job: TopKJob = { vectors: cache.vectors, offs: cache.vecOff, froms: cache.vecFrom, lens: cache.vecLen, target, targetInv: ss > 0 ? 1 / Math.sqrt(ss) : 0, slots, invNorm: cache.invNorm, ids: cache.ids, k: pool };
 	const pre = slots.length >= workerMin() ? await topKInWorker(job) : topKInProcess(job);
 	const rows = await summariesByIds(caller.reader, pre.map((h) => h.id));
 	const stretch = (r: { derived_extra?: string | null }) => parseDerivedExtra(r.derived_extra ?? null)?.similarity ?? null;

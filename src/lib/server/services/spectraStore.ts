@@ -13,8 +13,8 @@ import { vectorToBuffer } from '../../spectra/grid';
 import type { ParseIssue } from '../../spectra/types';
 import { isValidCas, type UploadMetadata } from '../../schemas/spectra';
 import { ApiError } from '../http';
-import { findSpectraBySha, findSpectrumSummariesByIds, insertSpectra, insertSpectrumFile, nextChangeSeq, type NewSpectrumRow } from '../db/spectra';
-import { float64ToBuffer } from '../db/spectraBlobs';
+import { findSpectraBySha, findSpectrumSummariesByIds, storeNewFileOneTrip, insertSpectra, insertSpectrumFile, multiRowIdsAreConsecutive, nextChangeSeq, oneTripBytes, type NewSpectrumRow, type SpectrumRow } from '../db/spectra';
+import { float64ToBuffer, statementBudget } from '../db/spectraBlobs';
 import { cleanTags, findTagIds, insertMissingTags } from '../db/tags';
 import type { PreparedSpectrum } from './spectraPrepare';
 import { assertFiniteSpectra } from './spectraFinite';
@@ -122,37 +122,60 @@ export function checkStorageLimits(input: Pick<StoreInput, 'bytes' | 'spectra' |
 		throw new ApiError(413, 'too_large', `file: storing ${input.filename} would write ${(bytes / 1048576).toFixed(1)} MiB; at most ${(limits.maxWriteBytes / 1048576).toFixed(0)} MiB are written per upload`, { field: 'file', bytes, limit: limits.maxWriteBytes });
 }
 
+type ShaRow = Awaited<ReturnType<typeof findSpectraBySha>>[number];
+
+/** The 409 for an upload whose file (one of its blocks) this group already holds, or null. */
+function duplicateOf(existing: ShaRow[], input: StoreInput): ApiError | null {
+	const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
+	if (!clash) return null;
+	if (clash.visibility === 'private' && clash.owner_id !== input.ownerId)
+		// Someone else's private spectrum: never name it or give its id.
+		return new ApiError(409, 'duplicate', `${input.filename} is already stored in this group by another member who has not shared it; ask your group lead to have it shared with you`, { field: 'file' });
+	return new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
+}
+
+/** A MariaDB duplicate-key error (ER_DUP_ENTRY). */
+const isDuplicateKey = (e: unknown) => (e as { errno?: number; code?: string })?.errno === 1062 || (e as { code?: string })?.code === 'ER_DUP_ENTRY';
+
 /**
  * Stores every prepared spectrum of one file in one transaction.
+ *
+ * Usually in one round trip (db/spectra.ts storeNewFileOneTrip: BEGIN, one compound statement,
+ * the read-back, COMMIT); a duplicate is then caught by the unique key on group + file hash + block
+ * and named after the rollback. Files too big for one statement, and servers that do not hand out
+ * consecutive ids, take the step-by-step path (`oneTrip: false` forces it, for tests).
  * @throws ApiError 409 when the group already holds this file (names the existing spectrum);
  *   422 too many spectra, 413 too many bytes (nothing written)
  */
-export async function storeSpectra(conn: Knex, input: StoreInput) {
+export async function storeSpectra(conn: Knex, input: StoreInput, opts: { oneTrip?: boolean } = {}) {
 	assertFiniteSpectra(input.spectra, input.filename);
 	checkStorageLimits(input);
 	const sha = sha256Hex(input.bytes);
-	const ids = await conn.transaction(async (trx) => {
-		// the change number first: every writer takes this one row lock first, so writers never deadlock
-		const seq = await nextChangeSeq(trx);
-		const existing = await findSpectraBySha(trx, input.groupId, sha);
-		const clash = existing.find((e) => input.spectra.some((s) => s.blockIndex === e.block_index));
-		if (clash && clash.visibility === 'private' && clash.owner_id !== input.ownerId)
-			// Someone else's private spectrum: never name it or give its id.
-			throw new ApiError(409, 'duplicate', `${input.filename} is already stored in this group by another member who has not shared it; ask your group lead to have it shared with you`, { field: 'file' });
-		if (clash)
-			throw new ApiError(409, 'duplicate', `${input.filename} is already in the Library as "${clash.name}" (spectrum ${clash.id}${clash.deleted_at ? ', deleted — restore it instead' : ''})`, { existingId: Number(clash.id), field: 'file' });
-		const tagNames = cleanTags(input.meta.tags ?? []);
-		await insertMissingTags(trx, tagNames);
-		const tagIds = await findTagIds(trx, tagNames);
-		const fileId = await insertSpectrumFile(trx, { groupId: input.groupId, sha256: sha, fileName: input.filename, bytes: input.bytes });
-		const rows = spectrumRowsFor(input, sha).map((r) => ({ ...r, file_id: fileId }));
-		const out = await insertSpectra(trx, rows, seq, { newFile: true });
-		if (tagIds.length) await trx('spectrum_tags').insert(out.flatMap((id) => tagIds.map((tag_id) => ({ spectrum_id: id, tag_id }))));
-		await trx('spectrum_revisions').insert(out.map((id) => ({ spectrum_id: id, version: 1, action: 'create', user_id: input.ownerId, changes: null })));
-		return out;
-	});
-	const tags = cleanTags(input.meta.tags ?? []);
-	const items = [];
-	for (const row of await findSpectrumSummariesByIds(ids, conn)) items.push(spectrumToApi(row, tags));
-	return { items, warnings: input.warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
+	const tagNames = cleanTags(input.meta.tags ?? []);
+	const rows = spectrumRowsFor(input, sha);
+	const file = { groupId: input.groupId, sha256: sha, fileName: input.filename, bytes: input.bytes };
+	const oneTrip = opts.oneTrip !== false && (await multiRowIdsAreConsecutive(conn)) && oneTripBytes(input.bytes, rows) <= (await statementBudget(conn));
+	let stored: SpectrumRow[];
+	try {
+		stored = oneTrip
+			? await storeNewFileOneTrip(conn, file, rows, { revisionUserId: input.ownerId, tagNames })
+			: await conn.transaction(async (trx) => {
+					// the change number first: every writer takes this one row lock first, so writers never deadlock
+					const seq = await nextChangeSeq(trx);
+					const dup = duplicateOf(await findSpectraBySha(trx, input.groupId, sha), input);
+					if (dup) throw dup;
+					await insertMissingTags(trx, tagNames);
+					const tagIds = await findTagIds(trx, tagNames);
+					const fileId = await insertSpectrumFile(trx, file);
+					const out = await insertSpectra(trx, rows.map((r) => ({ ...r, file_id: fileId })), seq, { newFile: true });
+					if (tagIds.length) await trx('spectrum_tags').insert(out.flatMap((id) => tagIds.map((tag_id) => ({ spectrum_id: id, tag_id }))));
+					await trx('spectrum_revisions').insert(out.map((id) => ({ spectrum_id: id, version: 1, action: 'create', user_id: input.ownerId, changes: null })));
+					return findSpectrumSummariesByIds(out, trx);
+				});
+	} catch (e) {
+		if (!isDuplicateKey(e)) throw e;
+		// rolled back; name what the group already holds (the unique key is group + hash + block)
+		throw duplicateOf(await findSpectraBySha(conn, input.groupId, sha), input) ?? e;
+	}
+	return { items: stored.map((row) => spectrumToApi(row, tagNames)), warnings: input.warnings.map(({ code, message, line, block }) => ({ code, message, line, block })) };
 }

@@ -1,6 +1,9 @@
 /**
- * The per-process Library index: the 1 nm search vectors in one contiguous Float32Array (in a
- * SharedArrayBuffer, so the similarity worker reads it without a copy), the narrow metadata the
+ * The per-process Library index: the 1 nm search vectors packed in one contiguous Float32Array (in
+ * a SharedArrayBuffer, so the similarity worker reads it without a copy) — each slot keeps only its
+ * measured stretch, from its first to its last non-zero value (a vector is 0 outside the measured
+ * range, grid.ts), with its offset, first grid index and length beside it; most UV–vis spectra
+ * cover 200–800 nm, two thirds of the 190–1100 nm grid — and the narrow metadata the
  * filters read (group, owner, visibility, deleted, part, kind, solvent, unit, c·l, dates, λmax) in
  * typed columns, and an n-gram (trigram) index of names, synonyms and CAS numbers.
  *
@@ -15,7 +18,7 @@
 import { currentChangeSeq, vectorRowsChangedSince, type VectorCacheRow } from '../db/spectra';
 import { copyFloat32Into } from '../db/spectraBlobs';
 import { db } from '../db/index';
-import { SEARCH_LENGTH } from '../../spectra/grid';
+import { GRID_FROM_NM, SEARCH_LENGTH } from '../../spectra/grid';
 import { spectrumTermTexts, trigramsOf } from '../../spectra/trigrams';
 import { vectorFacts } from './spectraVectorFilters';
 
@@ -62,7 +65,16 @@ export class VectorCache {
 	capacity = 0;
 	count = 0;
 	seq = -1;
+	/** The packed stretches: slot s holds vecLen[s] values from grid index vecFrom[s], at vecOff[s]. */
 	vectors = new Float32Array(new SharedArrayBuffer(0));
+	vecOff = new Int32Array(new SharedArrayBuffer(0));
+	vecFrom = new Int16Array(new SharedArrayBuffer(0));
+	vecLen = new Int16Array(new SharedArrayBuffer(0));
+	/** Floats of `vectors` in use (the rest of the buffer is reserved address space, never touched, so not resident). */
+	used = 0;
+	/** Floats left behind by stretches that were rewritten longer elsewhere. */
+	wasted = 0;
+	private readonly scratch = new Float32Array(SEARCH_LENGTH);
 	ids = new Int32Array(new SharedArrayBuffer(0));
 	invNorm = new Float64Array(new SharedArrayBuffer(0));
 	kindCode = new Uint8Array(0);
@@ -108,20 +120,74 @@ export class VectorCache {
 		return this.units.list[this.unitCode[slot]];
 	}
 
-	/** The vector of a slot (a view, no copy). */
+	/** The whole 1 nm vector of a slot (a new array, 0 outside its stretch). */
 	vector(slot: number): Float32Array {
-		return this.vectors.subarray(slot * this.len, (slot + 1) * this.len);
+		const v = new Float32Array(this.len);
+		const n = this.vecLen[slot];
+		if (n > 0) v.set(this.vectors.subarray(this.vecOff[slot], this.vecOff[slot] + n), this.vecFrom[slot]);
+		return v;
+	}
+
+	/** Value of a slot's vector at grid index i (0 outside its stretch). */
+	at(slot: number, i: number): number {
+		const k = i - this.vecFrom[slot];
+		return k >= 0 && k < this.vecLen[slot] ? this.vectors[this.vecOff[slot] + k] : 0;
+	}
+
+	/** Linear interpolation of a slot's vector at λ (nm) — vectorAt() of spectraVectorFilters without a copy. */
+	valueAt(slot: number, wavelengthNm: number): number {
+		const p = wavelengthNm - GRID_FROM_NM;
+		if (p < 0 || p > this.len - 1) return 0;
+		const i = Math.floor(p);
+		const t = p - i;
+		return i + 1 < this.len ? this.at(slot, i) * (1 - t) + this.at(slot, i + 1) * t : this.at(slot, i);
+	}
+
+	/** Room for `n` more floats of stretches (grows the buffer by half when full; copies only what is used). */
+	private reserve(n: number) {
+		if (this.used + n <= this.vectors.length) return;
+		const cap = Math.max(this.used + n, Math.ceil(this.vectors.length * 1.5), 1024 * this.len);
+		const a = new Float32Array(new SharedArrayBuffer(cap * 4));
+		a.set(this.vectors.subarray(0, this.used));
+		this.vectors = a;
+	}
+
+	/** Stores the stretch of `v` (first to last non-zero value) for a slot: in place when it fits, else at the end. */
+	private pack(slot: number, isNew: boolean, v: Float32Array) {
+		let first = 0;
+		while (first < v.length && v[first] === 0) first++;
+		let last = v.length - 1;
+		while (last >= first && v[last] === 0) last--;
+		const n = Math.max(0, last - first + 1);
+		const old = isNew ? 0 : this.vecLen[slot];
+		if (isNew || n > old) {
+			this.reserve(n);
+			if (!isNew) this.wasted += old;
+			this.vecOff[slot] = this.used;
+			this.used += n;
+		} else this.wasted += old - n;
+		this.vectors.set(v.subarray(first, first + n), this.vecOff[slot]);
+		this.vecFrom[slot] = n ? first : 0;
+		this.vecLen[slot] = n;
 	}
 
 	private grow(min: number) {
 		if (min <= this.capacity) return;
 		const cap = Math.max(min, Math.ceil(this.capacity * 1.5), 1024);
-		const shared = <T extends Float32Array | Int32Array | Float64Array>(old: T, make: (b: SharedArrayBuffer) => T, width: number): T => {
+		const shared = <T extends Int16Array | Int32Array | Float64Array>(old: T, make: (b: SharedArrayBuffer) => T, width: number): T => {
 			const a = make(new SharedArrayBuffer(cap * width));
-			a.set(old.subarray(0, old === this.vectors ? this.count * this.len : this.count) as never);
+			a.set(old.subarray(0, this.count) as never);
 			return a;
 		};
-		this.vectors = shared(this.vectors, (b) => new Float32Array(b), this.len * 4);
+		// address space for whole vectors; only the packed stretches written into it become resident
+		if (this.vectors.length < cap * this.len) {
+			const a = new Float32Array(new SharedArrayBuffer(cap * this.len * 4));
+			a.set(this.vectors.subarray(0, this.used));
+			this.vectors = a;
+		}
+		this.vecOff = shared(this.vecOff, (b) => new Int32Array(b), 4);
+		this.vecFrom = shared(this.vecFrom, (b) => new Int16Array(b), 2);
+		this.vecLen = shared(this.vecLen, (b) => new Int16Array(b), 2);
 		this.ids = shared(this.ids, (b) => new Int32Array(b), 4);
 		this.invNorm = shared(this.invNorm, (b) => new Float64Array(b), 8);
 		const copy = <T extends Uint8Array | Int16Array | Int32Array | Float32Array | Float64Array>(old: T, make: (n: number) => T): T => {
@@ -173,12 +239,12 @@ export class VectorCache {
 			slot = this.count++;
 			this.slotOf.set(id, slot);
 		}
-		const off = slot * this.len;
 		const buf = r.vector;
 		const ok = !!buf && buf.byteLength === this.len * 4;
-		if (ok) copyFloat32Into(buf!, this.vectors, off);
-		else this.vectors.fill(0, off, off + this.len);
-		const v = this.vector(slot);
+		const v = this.scratch;
+		if (ok) copyFloat32Into(buf!, v, 0);
+		else v.fill(0);
+		this.pack(slot, isNew, v);
 		let ss = 0;
 		for (let i = 0; i < v.length; i++) ss += v[i] * v[i];
 		this.ids[slot] = id;
@@ -230,6 +296,8 @@ export class VectorCache {
 				after = Number(rows[rows.length - 1].id);
 			}
 			if (this.dirty.size > MAX_DIRTY) this.rebuildPostings();
+			// many stretches rewritten longer elsewhere: load again from scratch, packed tight
+			if (this.wasted > Math.max(1 << 20, this.used / 4)) this.stale = true;
 			if (since >= 0) {
 				const [rows] = await db().raw('SELECT COUNT(*) AS n FROM spectra');
 				if (Number(rows[0].n) < this.count) this.stale = true;
@@ -280,9 +348,9 @@ export class VectorCache {
 		return out;
 	}
 
-	/** Bytes held by the typed columns (vectors included). */
+	/** Bytes in use by the typed columns (the packed stretches included). */
 	bytes(): number {
-		return this.capacity * (this.len * 4 + 4 + 8 + 4 * 1 + 4 * 3 + 8 * 4 + 4 + 2 * 3 + 1);
+		return this.used * 4 + this.capacity * (4 + 2 + 2 + 4 + 8 + 4 * 1 + 4 * 3 + 8 * 4 + 4 + 2 * 3 + 1);
 	}
 }
 

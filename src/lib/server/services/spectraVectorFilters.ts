@@ -32,7 +32,11 @@ export interface VectorRow {
  * when ε, concentration and path are stored.
  */
 export function absorptionAt(row: VectorRow, v: Float32Array, wavelengthNm: number): { absorbance?: number; epsilon?: number } {
-	const y = vectorAt(v, wavelengthNm);
+	return absorptionOf(row, vectorAt(v, wavelengthNm));
+}
+
+/** absorptionAt() from the vector's value y at λ. */
+export function absorptionOf(row: VectorRow, y: number): { absorbance?: number; epsilon?: number } {
 	if (row.y_unit === 'absorbance') return { absorbance: y };
 	if (row.y_unit !== 'epsilon') return {};
 	const cl = row.concentration_m && row.path_cm ? row.concentration_m * row.path_cm : undefined;
@@ -117,14 +121,11 @@ export function transparentAboveFromFacts(kind: string, f: VectorFacts, waveleng
 	return f.max > 0 && f.lastAbove5pct < start;
 }
 
-/** `absorbsAt` with the vector's maximum known (no pass over the vector). */
-export function absorbsAtWithMax(row: VectorRow, v: Float32Array, max: number, rule: AbsorbsAtRule): boolean {
+/** `absorbsAt` from the vector's value y at λ and its maximum (no pass over the vector). */
+export function absorbsAtValue(row: VectorRow, y: number, max: number, rule: AbsorbsAtRule): boolean {
 	if (row.kind !== 'absorption') return false;
-	if (rule.minAbsorbance === undefined && rule.minEpsilon === undefined) {
-		const y = vectorAt(v, rule.wavelengthNm);
-		return max > 0 && y >= 0.1 * max;
-	}
-	const at = absorptionAt(row, v, rule.wavelengthNm);
+	if (rule.minAbsorbance === undefined && rule.minEpsilon === undefined) return max > 0 && y >= 0.1 * max;
+	const at = absorptionOf(row, y);
 	const okA = rule.minAbsorbance !== undefined && at.absorbance !== undefined && at.absorbance >= rule.minAbsorbance;
 	const okE = rule.minEpsilon !== undefined && at.epsilon !== undefined && at.epsilon >= rule.minEpsilon;
 	return okA || okE;
