@@ -19,6 +19,7 @@ import { absorbsAt, absorbsAtValue, transparentAbove, transparentAboveFromFacts,
 import { stopSimilarityWorker, topKInProcess, topKInWorker } from '../../src/lib/server/services/similarityKernel';
 import { cosineSimilarity, rankSimilar } from '../../src/lib/spectra/similarity';
 import { bufferToVector, SEARCH_LENGTH, vectorToBuffer } from '../../src/lib/spectra/grid';
+import { spectrumTermTexts, trigramsOf } from '../../src/lib/spectra/trigrams';
 import type { VectorCacheRow } from '../../src/lib/server/db/spectra';
 import { apiFailure, csvOf, gauss, localsOf, resetSpectraWorld, rowCounts, upload } from './spectraTestKit';
 import { prng } from '../../src/lib/prng';
@@ -344,6 +345,43 @@ describe('vector filters from precomputed facts give the same answers as the ful
 		expect(c.vecOff[7]).toBe(floats);
 		expect(Array.from(c.vector(7))).toEqual(Array.from(long));
 		expect(c.wasted).toBeGreaterThan(0);
+	});
+});
+
+describe('the n-gram index ranks like the plain count-and-sort it replaces', () => {
+	it('2,000 invented names, 6 queries, with filters, tag slots and renamed slots', () => {
+		const r = rng(21);
+		const words = ['amber', 'violet', 'harbour', 'quay', 'tide', 'lantern', 'shingle', 'dune', 'ester', 'enone', 'dye', 'salt', 'marsh', 'pool'];
+		const name = () => Array.from({ length: 2 + Math.floor(r() * 3) }, () => words[Math.floor(r() * words.length)]).join(' ') + ' ' + Math.floor(r() * 1000);
+		const c = new VectorCache();
+		const names: string[] = [];
+		for (let s = 0; s < 2000; s++) {
+			names.push(name());
+			c.put({ ...cacheRow(100_000 + s, new Float32Array(SEARCH_LENGTH)), name: names[s] });
+		}
+		// rename some: their postings go stale and are counted from their new grams
+		for (const s of [5, 77, 1500]) {
+			names[s] = name() + ' renamed';
+			c.put({ ...cacheRow(100_000 + s, new Float32Array(SEARCH_LENGTH)), name: names[s] });
+		}
+		const accept = (s: number) => s % 5 !== 0;
+		for (const q of ['ambr violett', 'harbor', 'lantrn dye', 'shingle ester', 'renamed', 'tidepool']) {
+			const grams = trigramsOf(q);
+			const need = Math.ceil(grams.length / 2);
+			const tagged = [3, 4, 10, 1999];
+			const got = c.rankedGramHits(grams, need, accept, tagged);
+			const want = names
+				.map((n, s) => {
+					const own = new Set(trigramsOf(...spectrumTermTexts({ name: n, synonyms: '[]', cas: null })));
+					let h = grams.filter((g) => own.has(g)).length;
+					if (tagged.includes(s) && h < need) h = need;
+					return { s, h };
+				})
+				.filter((x) => x.h >= need && accept(x.s))
+				.sort((a, b) => b.h - a.h || b.s - a.s);
+			expect(Array.from(got.slots.subarray(0, got.n))).toEqual(want.map((x) => x.s));
+			expect(Array.from(got.hits.subarray(0, got.n))).toEqual(want.map((x) => x.h));
+		}
 	});
 });
 

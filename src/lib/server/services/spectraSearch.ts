@@ -11,6 +11,7 @@
  * Only the page's rows are then read from the database, with the caller's visibility applied again.
  */
 import Fuse from 'fuse.js';
+import pLimit from 'p-limit';
 import { classifyCasQuery } from '../../cas';
 import { ApiError } from '../http';
 import type { SpectrumListQuery } from '../../schemas/spectra';
@@ -218,35 +219,53 @@ async function matchingTagIds(c: VectorCache, text: string): Promise<number[]> {
 	return new Fuse(tagList.tags, { keys: ['name'], threshold: 0.3, ignoreLocation: true, minMatchCharLength: 2 }).search(text).map((h) => Number(h.item.id));
 }
 
+/** The answer of a fuzzy name search: the fuse.js re-ranked head, then the other candidates by shared trigrams. */
+interface FuzzyRanking {
+	total: number;
+	/** Hits from `from` (inclusive) to `to` (exclusive) in rank order — objects for these only. */
+	range(from: number, to: number): Hit[];
+}
+
+/** Lets other requests (a health check, a page) run between the steps of a long search. */
+const yieldToLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 /** Ranked hits of a fuzzy name search among the slots passing `accept` (see the module comment). */
-async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text: string, tagCache: Map<number, string[]>): Promise<Hit[]> {
+async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text: string, tagCache: Map<number, string[]>): Promise<FuzzyRanking> {
 	const grams = trigramsOf(text);
-	if (!grams.length) return [];
+	if (!grams.length) return { total: 0, range: () => [] };
 	const need = Math.max(1, Math.ceil(grams.length * MIN_SHARE));
-	const cands = c.gramHits(grams, need, accept);
-	const bySlot = new Set(cands.map((x) => x.slot));
+	const tagged: number[] = [];
 	for (const id of await spectrumIdsTagged(await matchingTagIds(c, text))) {
 		const slot = c.slotOf.get(id);
-		if (slot !== undefined && !bySlot.has(slot) && accept(slot)) {
-			cands.push({ slot, hits: need });
-			bySlot.add(slot);
-		}
+		if (slot !== undefined) tagged.push(slot);
 	}
-	cands.sort((a, b) => b.hits - a.hits || c.ids[b.slot] - c.ids[a.slot]);
-	const top = cands.slice(0, RERANK);
-	const tags = await tagsOfSpectra(top.map((x) => c.ids[x.slot]));
+	// one synchronous pass (the index's shared scratch); then the loop is let go before the re-rank
+	const ranked = c.rankedGramHits(grams, need, accept, tagged);
+	await yieldToLoop();
+	const headN = Math.min(RERANK, ranked.n);
+	const head = Array.from(ranked.slots.subarray(0, headN));
+	const tags = await tagsOfSpectra(head.map((sl) => c.ids[sl]));
 	for (const [id, t] of tags) tagCache.set(id, t);
-	for (const x of top) if (!tagCache.has(c.ids[x.slot])) tagCache.set(c.ids[x.slot], []);
-	const docs = top.map((x) => ({ slot: x.slot, name: c.names[x.slot], synonyms: c.synonyms[x.slot], cas: c.cas[x.slot] ?? '', tags: tags.get(c.ids[x.slot]) ?? [] }));
-	const fused = new Fuse(docs, FUSE_OPTIONS).search(text);
-	const seen = new Set<number>();
-	const out: Hit[] = [];
-	for (const h of fused) {
-		seen.add(h.item.slot);
-		out.push({ id: c.ids[h.item.slot], slot: h.item.slot, score: h.score ?? 0 });
-	}
-	for (const x of cands) if (!seen.has(x.slot)) out.push({ id: c.ids[x.slot], slot: x.slot, score: Number((1 - x.hits / grams.length).toFixed(4)) });
-	return out;
+	for (const sl of head) if (!tagCache.has(c.ids[sl])) tagCache.set(c.ids[sl], []);
+	const docs = head.map((sl) => ({ slot: sl, name: c.names[sl], synonyms: c.synonyms[sl], cas: c.cas[sl] ?? '', tags: tags.get(c.ids[sl]) ?? [] }));
+	const fused: Hit[] = new Fuse(docs, FUSE_OPTIONS).search(text).map((h) => ({ id: c.ids[h.item.slot], slot: h.item.slot, score: h.score ?? 0 }));
+	const seen = new Set(fused.map((h) => h.slot!));
+	// the rest, in trigram rank order: the head's slots fuse.js did not match, then everything after the head
+	const restHead = head.filter((sl) => !seen.has(sl));
+	const total = fused.length + restHead.length + (ranked.n - headN);
+	const restHit = (k: number): Hit => {
+		const j = k < restHead.length ? ranked.slots.indexOf(restHead[k]) : headN + (k - restHead.length);
+		const sl = ranked.slots[j];
+		return { id: c.ids[sl], slot: sl, score: Number((1 - ranked.hits[j] / grams.length).toFixed(4)) };
+	};
+	return {
+		total,
+		range(from, to) {
+			const out: Hit[] = [];
+			for (let k = Math.max(0, from); k < Math.min(to, total); k++) out.push(k < fused.length ? fused[k] : restHit(k - fused.length));
+			return out;
+		}
+	};
 }
 
 /** Shapes one page of rows. */
@@ -263,6 +282,15 @@ async function itemsOf(caller: Caller, rows: SpectrumRow[], hits?: Map<number, H
 		};
 	});
 }
+
+/**
+ * The lane of index searches (fuzzy names, vector filters): at most WINDOWSILL_SEARCH_LANE of them
+ * (default 1) run at once in this process; the others wait their turn without holding the event
+ * loop. Their work is CPU on the one JavaScript thread, so running more at once only interleaves
+ * them — it never finishes them sooner — while a queue of them in the loop would delay everything
+ * else (a health check, a page, a sign-in) behind their steps.
+ */
+const searchLane = pLimit(Math.max(1, Math.floor(Number(process.env.WINDOWSILL_SEARCH_LANE ?? 1)) || 1));
 
 /** Searches the Library as the caller sees it. @returns `{ items, total }` (total before paging) */
 export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
@@ -291,12 +319,25 @@ export async function searchSpectra(locals: App.Locals, q: SpectrumListQuery) {
 		return { total, items: await itemsOf(caller, rows) };
 	}
 
+	return searchLane(() => searchIndex(caller, q, f, order, fuzzy ? text : '', needVector));
+}
+
+/** The fuzzy and vector-filter searches over the process's Library index (run in the search lane). */
+async function searchIndex(caller: Caller, q: SpectrumListQuery, f: SpectrumSqlFilter, order: SpectrumOrder, text: string, needVector: boolean) {
+	const fuzzy = text !== '';
 	const c = await vectorCache();
 	const accept = await slotFilter(c, caller, f);
 	let hits: Hit[];
 	const knownTags = new Map<number, string[]>();
 	if (fuzzy) {
-		hits = await fuzzyHits(c, accept, text, knownTags);
+		const ranking = await fuzzyHits(c, accept, text, knownTags);
+		if (!needVector && !q.sort) {
+			// the common case (a picker, the Library's search box): objects for the page only
+			const page = ranking.range(q.offset, q.offset + q.limit);
+			const rows = await summariesByIds(caller.reader, page.map((h) => h.id), { deleted: 'include' });
+			return { total: ranking.total, items: await itemsOf(caller, rows, new Map(page.map((h) => [h.id, h])), knownTags) };
+		}
+		hits = ranking.range(0, ranking.total);
 		if (needVector)
 			hits = hits.flatMap((h) => {
 				const v = vectorHit(c, h.slot!, q);

@@ -109,6 +109,11 @@ export class VectorCache {
 	private readonly termKey: string[] = [];
 	private readonly dirty = new Map<number, Set<number>>();
 	private refreshing: Promise<void> | null = null;
+	/** Scratch of rankedGramHits (grams shared per slot, and which slots were touched). */
+	private counts = new Uint16Array(0);
+	private touched = new Int32Array(0);
+	/** Whether slot order is id order (true unless a row ever arrived with an id below one already held). */
+	idsAscending = true;
 	/** Rows were removed from the table behind the index's back: load again from scratch. */
 	stale = false;
 
@@ -236,6 +241,7 @@ export class VectorCache {
 		const isNew = slot === undefined;
 		if (slot === undefined) {
 			this.grow(this.count + 1);
+			if (this.count > 0 && id < this.ids[this.count - 1]) this.idsAscending = false;
 			slot = this.count++;
 			this.slotOf.set(id, slot);
 		}
@@ -323,29 +329,70 @@ export class VectorCache {
 	}
 
 	/**
-	 * Slots sharing at least `need` of the grams, with the number shared (the n-gram index).
+	 * Slots sharing at least `need` of the grams (the n-gram index), ranked: most grams shared first,
+	 * then newest (highest id) first. Synchronous from start to end — its scratch counters are shared
+	 * by every request of this process — and allocation-light: typed arrays, no object per candidate.
 	 * @param accept - only slots passing this test are counted
+	 * @param extra - slots that count as sharing exactly `need` grams when they share fewer (tag matches)
+	 * @returns `slots[i]` with `hits[i]` grams shared, for i < n, in rank order
 	 */
-	gramHits(grams: number[], need: number, accept: (slot: number) => boolean): { slot: number; hits: number }[] {
-		const counts = new Uint16Array(this.count);
-		const touched: number[] = [];
+	rankedGramHits(grams: number[], need: number, accept: (slot: number) => boolean, extra: number[] = []): { slots: Int32Array; hits: Uint16Array; n: number } {
+		if (this.counts.length < this.count) {
+			this.counts = new Uint16Array(this.capacity);
+			this.touched = new Int32Array(this.capacity);
+		}
+		const counts = this.counts;
+		const touched = this.touched;
+		let nt = 0;
 		for (const g of grams) {
 			const p = this.postings.get(g);
 			if (!p) continue;
 			const a = p.a;
 			for (let i = 0; i < p.n; i++) {
 				const s = a[i];
-				if (counts[s]++ === 0) touched.push(s);
+				if (counts[s]++ === 0) touched[nt++] = s;
 			}
 		}
-		const out: { slot: number; hits: number }[] = [];
-		for (const s of touched) if (!this.dirty.has(s) && counts[s] >= need && accept(s)) out.push({ slot: s, hits: counts[s] });
+		// renamed slots: their postings are stale, count them from their current grams
 		for (const [s, set] of this.dirty) {
 			let h = 0;
 			for (const g of grams) if (set.has(g)) h++;
-			if (h >= need && accept(s)) out.push({ slot: s, hits: h });
+			if (counts[s] === 0) touched[nt++] = s;
+			counts[s] = h;
 		}
-		return out;
+		for (const s of extra) {
+			if (s < 0 || s >= this.count) continue;
+			if (counts[s] === 0) touched[nt++] = s;
+			if (counts[s] < need) counts[s] = need;
+		}
+		let n = 0;
+		let top = 0;
+		const pass = new Int32Array(nt);
+		for (let i = 0; i < nt; i++) {
+			const s = touched[i];
+			if (counts[s] >= need && accept(s)) {
+				pass[n++] = s;
+				if (counts[s] > top) top = counts[s];
+			}
+		}
+		// newest first within a count: slots follow ids (loaded and appended in id order) unless idsAscending is off
+		const order = pass.subarray(0, n);
+		if (this.idsAscending) order.sort().reverse();
+		else order.sort((x, y) => this.ids[y] - this.ids[x]);
+		// then a stable counting sort by the number of grams shared, most first
+		const start = new Int32Array(top + 2);
+		for (let i = 0; i < n; i++) start[top - counts[order[i]] + 1]++;
+		for (let b = 1; b <= top + 1; b++) start[b] += start[b - 1];
+		const slots = new Int32Array(n);
+		const hits = new Uint16Array(n);
+		for (let i = 0; i < n; i++) {
+			const s = order[i];
+			const j = start[top - counts[s]]++;
+			slots[j] = s;
+			hits[j] = counts[s];
+		}
+		for (let i = 0; i < nt; i++) counts[touched[i]] = 0;
+		return { slots, hits, n };
 	}
 
 	/** Bytes in use by the typed columns (the packed stretches included). */
