@@ -171,6 +171,11 @@ describe('storing an upload: one round trip, or step by step — the same rows',
 			const p = prepareSpectra(bytes, name, { concentrationM: 1e-4, pathCm: 1 });
 			const r = await storeSpectra(db(), { groupId: groupA, ownerId: localsOf('member').user!.id, bytes, filename: name, meta: { part: 'substrate', tags: ['harbour-store', 'second tag'], names: ['ε column', 'A column'] }, ...p }, { oneTrip });
 			expect(r.items).toHaveLength(2);
+			// the answer is what a read gives afterwards, to the last digit and second
+			const { findSpectrumSummariesByIds } = await import('../../src/lib/server/db/spectra');
+			const { spectrumToApi } = await import('../../src/lib/server/services/spectraView');
+			const reread = (await findSpectrumSummariesByIds(r.items.map((i) => i.id))).map((row) => spectrumToApi(row, ['harbour-store', 'second tag']));
+			expect(r.items).toEqual(reread);
 			const got = [];
 			for (const it of r.items) {
 				const row = (await findSpectrumById(it.id))!;
