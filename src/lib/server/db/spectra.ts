@@ -365,7 +365,9 @@ export async function storeNewFileOneTrip(
 		statements.push(`INSERT INTO spectrum_tags (spectrum_id, tag_id) SELECT s.id, t.id FROM spectra s JOIN tags t ON t.name IN (${extra.tagNames.map(sqlValue).join(', ')}) WHERE s.file_id = @ws_file`);
 	}
 	// the read-back before COMMIT: a failure anywhere, this SELECT included, leaves nothing written
-	statements.push((readBackSql ??= summaryQuery(conn).whereRaw('s.file_id = @ws_file').orderBy('s.id').select([...SUMMARY_COLUMNS, conn.raw('@ws_first AS ws_first')]).toString()));
+	// by primary-key range (no sort), the file checked too; a row missing from the range fails the id check below
+	readBackSql ??= summaryQuery(conn).whereRaw('s.id BETWEEN @ws_first AND @ws_first + @ws_n - 1 AND s.file_id = @ws_file').orderBy('s.id').select([...SUMMARY_COLUMNS, conn.raw('@ws_first AS ws_first')]).toString();
+	statements.push(`SET @ws_n = ${rows.length}`, readBackSql);
 	statements.push('COMMIT');
 	const sql = `BEGIN NOT ATOMIC\nDECLARE EXIT HANDLER FOR SQLEXCEPTION BEGIN ROLLBACK; RESIGNAL; END;\nSTART TRANSACTION;\n${statements.join(';\n')};\nEND`;
 	// no bindings: the text is complete (db/sqlText.ts), so neither knex nor mysql2 scans it again
