@@ -4,7 +4,8 @@
  * (block_time_s + block_label, file order), reflectance stored as its own kind, refusals that write nothing, and
  * an n, k table added as a wall material. Invented tables are written here (an invented dye series).
  */
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '../../src/lib/server/db/index';
 import { findSpectrumById } from '../../src/lib/server/db/spectra';
@@ -40,6 +41,22 @@ describe('csv-variety through the upload service (MANIFEST.md)', () => {
 		expect(e.status).toBe(415);
 		expect(e.message).toMatch(/^optical-constants-n-k-not-a-spectrum\.csv: the columns "n" and "k" are optical constants/);
 		expect(e.message.match(/optical-constants-n-k-not-a-spectrum\.csv/g)).toHaveLength(1); // the file name once
+		expect(await rowCounts()).toEqual(before);
+	});
+	it('every refractive-index YAML of ../shared/external/materials: 415 optical constants naming the DATA line, nothing written', async () => {
+		// MANIFEST.md: refractiveindex.info database files (tabulated n, k and dispersion formulas), not spectra —
+		// read as a table, four of them used to pass for "absorbance" curves
+		const before = await rowCounts();
+		const dir = external('materials');
+		const files = readdirSync(dir).filter((f) => f.endsWith('.yml'));
+		expect(files.length).toBeGreaterThanOrEqual(13);
+		for (const f of files) {
+			const e = await apiFailure(uploadPath('member', path.join(dir, f)));
+			expect(e.status, f).toBe(415);
+			expect(e.message, f).toMatch(/a refractive-index data file \(YAML, DATA of type "(tabulated (nk|n|k)|formula \d)".*\): optical constants .*add the material as a wall from its n, k data/);
+			const dataLine = readFileSync(path.join(dir, f), 'utf8').split('\n').findIndex((l) => /^DATA\s*:/.test(l)) + 1;
+			expect(e.extra.line, f).toBe(dataLine);
+		}
 		expect(await rowCounts()).toEqual(before);
 	});
 	it('absorbance-comma-control.txt: 821 points, max 0.2349 at 441.5 nm', async () => {

@@ -3,7 +3,7 @@
  * binary or unknown content with `unsupported_format` (HTTP 415 in API.md), applies the caller's
  * kind/unit choices and never throws (a bug becomes an `internal_error` issue).
  */
-import type { RawSpectrum, Result, SpectrumKind, XUnit, YUnit } from '../types';
+import type { ParseIssue, RawSpectrum, Result, SpectrumKind, XUnit, YUnit } from '../types';
 import { parseDelimited } from './csv';
 import { parseJcamp } from './jcamp';
 import { binarySignature } from './fileSignature';
@@ -72,6 +72,26 @@ function utf16Encoding(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | undefined {
 }
 
 /**
+ * The refusal for a refractive-index database file (YAML: a top-level `DATA:` list whose entries have
+ * `type: tabulated nk|n|k` or `type: formula N`), or null. Such a file holds optical constants, not
+ * a spectrum; read as a table its numbers would pass for an "absorbance" curve.
+ */
+function refractiveIndexYaml(text: string): ParseIssue | null {
+	const head = text.slice(0, 1 << 16);
+	const data = /^DATA\s*:/m.exec(head);
+	if (!data) return null;
+	const types = [...head.slice(data.index).matchAll(/^\s*-?\s*type\s*:\s*(tabulated\s+(?:nk|n|k)|formula\s+\d+)\s*$/gim)].map((m) => `"${m[1].replace(/\s+/g, ' ')}"`);
+	if (!types.length) return null;
+	const line = head.slice(0, data.index).split('\n').length;
+	return {
+		severity: 'error',
+		code: 'optical_constants_table',
+		message: `a refractive-index data file (YAML, DATA of type ${types.join(' and ')}): optical constants (refractive index n, extinction coefficient k), not a spectrum; add the material as a wall from its n, k data instead`,
+		line
+	};
+}
+
+/**
  * Parses an uploaded spectrum file.
  * @param bytes - file content; filename - used in messages only (content decides the format)
  * @param options - the caller's choices, which override what the file says
@@ -84,6 +104,10 @@ export function parseSpectrumFile(bytes: Uint8Array, filename: string, options: 
 		const text = decodeText(bytes);
 		if (text === undefined) return unsupported(`binary content; upload JCAMP-DX or delimited text (CSV, semicolon, tab, spaces)`);
 		const isJcamp = /^\s*##\s*(TITLE|JCAMP)/im.test(text.slice(0, 4096));
+		if (!isJcamp) {
+			const nk = refractiveIndexYaml(text);
+			if (nk) return { ok: false, issues: [nk] };
+		}
 		const units = { kind: options.kind, xUnit: options.xUnit, yUnit: options.yUnit };
 		const limits = options.limits ?? DEFAULT_PARSE_LIMITS;
 		const r = checkParsedSpectra(isJcamp ? parseJcamp(text, units, limits) : parseDelimited(text, { ...units, columns: options.columns, layout: options.layout, filename, concentrationM: options.concentrationM, pathCm: options.pathCm }), limits);
