@@ -94,8 +94,32 @@ test.describe('Quantum yield from a series (Library)', () => {
 		await page.getByTestId('qy-series').selectOption({ label: (await option.textContent())!.trim() });
 		// times come from the column headers
 		await expect(page.getByTestId('qy-times').locator('input').nth(3)).toHaveValue('120');
-		await page.getByTestId('qy-reactant').selectOption(String(reactant.id));
-		await expect(page.getByTestId('qy-reactant').locator('option:checked')).toContainText(/longest band 36\d nm/);
+		// take the last spectrum out and add it back with the Library picker (a series can be edited)
+		const last = items[7];
+		const esc = (t: string) => t.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+		await page.getByTestId('qy-times').getByRole('button', { name: /remove .*480 s/ }).click();
+		await expect(page.getByTestId('qy-times').locator('tbody tr')).toHaveCount(7);
+		await page.getByTestId('qy-add').click();
+		await page.getByTestId('qy-add').fill(last.name);
+		await page.getByRole('option', { name: new RegExp(`^${esc(last.name)}`) }).first().click();
+		await expect(page.getByTestId('qy-times').locator('tbody tr')).toHaveCount(8);
+		await expect(page.getByTestId('qy-times').locator('input').nth(7)).toHaveValue('480');
+		// the reactant is found by searching the Library as one types (the page never carries the whole Library)
+		await page.getByTestId('qy-reactant').click();
+		await page.getByTestId('qy-reactant').fill(`Brackwater enol ether ${nonce}`);
+		const pick = page.getByRole('option', { name: new RegExp(`Brackwater enol ether ${nonce}`) }).first();
+		await expect(pick).toContainText(/longest band 36\d nm/);
+		await pick.click();
+		await expect(page.getByTestId('qy-reactant')).toHaveValue(reactant.name);
+		// a measured absorbance spectrum is no reactant: the field says why
+		await page.getByTestId('qy-product').click();
+		await page.getByTestId('qy-product').fill(items[0].name);
+		await page.getByRole('option', { name: new RegExp(`^${esc(items[0].name)}`) }).first().click();
+		await expect(page.getByText('the fit needs the molar spectrum')).toBeVisible();
+		// the product is optional: emptying the field un-picks it
+		await page.getByTestId('qy-product').fill('');
+		await page.getByTestId('qy-product').press('Escape');
+		await expect(page.getByText('the fit needs the molar spectrum')).toHaveCount(0);
 		await page.getByTestId('qy-lamp').selectOption({ label: 'Bench LED 365 (array A)' });
 		await page.getByTestId('qy-wall').selectOption({ label: 'Fused silica, UV grade' });
 		await page.getByTestId('qy-compute').click();

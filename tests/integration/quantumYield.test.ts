@@ -53,6 +53,33 @@ const body = (extra: Record<string, unknown> = {}): Record<string, unknown> => (
 	spectrumIds: seriesIds, timesS: times, lampId, reactant: { spectrumId: reactantId }, volumeL: V, pathCm: L, wall: { materialId: wallId, thicknessMm: 1.25 }, ...extra
 });
 
+describe('the series the Φ page offers (grouped in SQL, newest first, never the whole Library)', () => {
+	it('an upload of ≥ 3 absorbance spectra is one series in file order with its times; ε spectra and other groups are not', async () => {
+		const { listAbsorbanceSeries } = await import('../../src/lib/server/db/spectra');
+		const { callerOf } = await import('../../src/lib/server/services/spectraAccess');
+		const { timeFromLabel } = await import('../../src/lib/irradiation/quantumYield/timeLabel');
+		// a second, newer series of two spectra only (not a series) and of four (a series)
+		await upload('member', 'spx-qy-two.csv', csv(['t = 0 s', 't = 60 s'], [epsS, epsS].map((f) => (x: number) => f(x) * 1e-4)), { kind: 'absorption', yUnit: 'absorbance', pathCm: 1 });
+		const four = await upload('member2', 'spx-qy-four.csv', csv(['t = 0 s', 't = 1 min', 't = 2 min', 't = 3 min'], [1, 0.8, 0.6, 0.5].map((k) => (x: number) => epsS(x) * 1e-4 * k)), { kind: 'absorption', yUnit: 'absorbance', pathCm: 1 });
+		const member = await callerOf(localsOf('member'));
+		const all = await listAbsorbanceSeries(member.reader, 50);
+		const mine = all.series.filter((x) => x.fileName?.startsWith('spx-qy-'));
+		expect(mine.map((x) => x.fileName)).toEqual(['spx-qy-four.csv', 'spx-qy-series.csv']);
+		expect(mine[1].spectra.map((x) => x.id)).toEqual(seriesIds);
+		expect(mine[1].spectra.map((x) => timeFromLabel(x.block_label ?? x.name))).toEqual(times);
+		expect(mine[0].spectra.map((x) => x.id)).toEqual(four.items.map((i: { id: number }) => Number(i.id)));
+		expect(mine[0].spectra.map((x) => timeFromLabel(x.block_label!))).toEqual([0, 60, 120, 180]);
+		// the newest one only, and that there are more
+		const one = await listAbsorbanceSeries(member.reader, 1);
+		expect(one.series.map((x) => x.fileName)).toEqual([all.series[0].fileName]);
+		expect(one.more).toBe(true);
+		expect(all.more).toBe(false);
+		// the other group sees neither
+		const outsider = await callerOf(localsOf('outsider'));
+		expect((await listAbsorbanceSeries(outsider.reader, 50)).series.filter((x) => x.fileName?.startsWith('spx-qy-'))).toEqual([]);
+	});
+});
+
 describe('POST /api/quantum-yield', () => {
 	it('the upload kept one spectrum per time column', () => {
 		expect(seriesIds).toHaveLength(12);

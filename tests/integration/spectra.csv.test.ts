@@ -107,6 +107,42 @@ describe('kinds and refusals', () => {
 	});
 });
 
+describe('refractive-index database YAML → wall material', () => {
+	const add = (file: string, name: string) => {
+		const fd = new FormData();
+		fd.append('file', new File([readFileSync(external(`materials/${file}`))], file));
+		fd.append('name', `${name} ${run}`);
+		fd.append('thicknessMm', '1');
+		return addWallMaterialFromOpticalConstants(localsOf('member'), fd);
+	};
+	it('borosilicate 3.3 float sheet (Sellmeier n, tabulated k): the internal transmission of 1 mm given in MANIFEST.md', async () => {
+		const m = await add('borosilicate-3.3-float-sheet-nk.yml', 'Borosilicate 3.3 sheet (YAML)');
+		// MANIFEST.md: n(589.3) = 1.47143
+		expect(m.refractiveIndex).toBeCloseTo(1.47143, 4);
+		const stored = (await getWallMaterial(m.id, [groupA]))!;
+		const R = ((m.refractiveIndex - 1) / (m.refractiveIndex + 1)) ** 2;
+		// MANIFEST.md: internal T(1 mm) 0.148 at 254 nm, 0.894 at 300 nm, 0.9986 at 365 nm; the wall adds (1 − R)² for the two faces
+		for (const [nm, internal] of [[254, 0.148], [300, 0.894], [365, 0.9986]]) expect(wallTransmission(stored.model, 1, nm) / (1 - R) ** 2).toBeCloseTo(internal, 2);
+		expect(m.warnings).toEqual([]);
+		await db()('wall_materials').where({ id: m.id }).delete();
+	});
+	it('n only (fused silica, Malitson) is 422 naming the file: a wall needs k; negative k (alumina) is refused; nothing is written', async () => {
+		const before = Number((await db()('wall_materials').count({ n: '*' }))[0].n);
+		const noK = await apiFailure(add('fused-silica-n-malitson-1965.yml', 'Fused silica n only'));
+		expect([noK.status, noK.extra.field]).toEqual([422, 'file']);
+		expect(noK.message).toMatch(/refractive index n only, no extinction coefficient k/);
+		const negative = await apiFailure(add('alumina-querry-negative-k-trap.yml', 'Alumina negative k'));
+		expect(negative.status).toBeGreaterThanOrEqual(400);
+		expect(negative.message).toMatch(/k = -?[\d.e-]+ at .* nm is negative/);
+		expect(Number((await db()('wall_materials').count({ n: '*' }))[0].n)).toBe(before);
+	});
+	it('a model whose UV k is far too high for a bulk window is added with the plausibility warning (MANIFEST.md: a trap)', async () => {
+		const m = await add('silica-franta-25c-not-a-window.yml', 'Silica model (not a window)');
+		expect(m.warnings.map((w) => w.code)).toContain('implausible_window');
+		await db()('wall_materials').where({ id: m.id }).delete();
+	});
+});
+
 describe('n, k table → wall material', () => {
 	it('adds a tabulated-k wall in the caller’s group; 1 mm at 250 nm transmits (1 − R)²·exp(−4πkd/λ)', async () => {
 		const fd = new FormData();

@@ -76,7 +76,7 @@ function utf16Encoding(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | undefined {
  * `type: tabulated nk|n|k` or `type: formula N`), or null. Such a file holds optical constants, not
  * a spectrum; read as a table its numbers would pass for an "absorbance" curve.
  */
-function refractiveIndexYaml(text: string): ParseIssue | null {
+export function refractiveIndexYaml(text: string): ParseIssue | null {
 	const head = text.slice(0, 1 << 16);
 	const data = /^DATA\s*:/m.exec(head);
 	if (!data) return null;

@@ -1,37 +1,31 @@
 import { redirect } from '@sveltejs/kit';
-import { timeFromLabel } from '$lib/irradiation/quantumYield/seriesFit';
-import { listSpectrumSummaries } from '$lib/server/db/spectra';
+import { timeFromLabel } from '$lib/irradiation/quantumYield/timeLabel';
+import { listAbsorbanceSeries } from '$lib/server/db/spectra';
 import { listWallMaterials } from '$lib/server/db/wallMaterials';
 import { listLamps } from '$lib/server/db/lamps';
 import { callerOf } from '$lib/server/services/spectraAccess';
 import type { PageServerLoad } from './$types';
 
-/** Choices for the Φ measurement: series (uploads with ≥ 3 absorbance spectra), molar spectra, lamps, walls. */
+/** Uploads offered as a series (the newest; others are added one by one with the Library picker). */
+const SERIES_SHOWN = 200;
+
+/**
+ * Choices for the Φ measurement: the newest series (uploads with ≥ 3 absorbance spectra, grouped in SQL), lamps and
+ * walls. Single spectra, the reactant and the product are picked by searching the Library as one types — the page
+ * never carries the whole Library.
+ */
 export const load: PageServerLoad = async ({ locals, url }) => {
 	if (!locals.user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
 	const caller = await callerOf(locals);
 	const groupIds = caller.memberships.map((m) => m.groupId);
-	const [spectra, materials, lamps] = await Promise.all([listSpectrumSummaries(caller.reader, { kind: 'absorption' }), listWallMaterials(groupIds), listLamps(groupIds)]);
-	const measured = spectra.filter((s) => s.y_unit === 'absorbance');
-	// one upload = one file (same bytes) of one owner: its blocks/columns in file order
-	const uploads = new Map<string, typeof measured>();
-	for (const s of measured) {
-		if (!s.file_sha256) continue;
-		const key = `${s.owner_id}:${s.file_sha256}`;
-		uploads.set(key, [...(uploads.get(key) ?? []), s]);
-	}
-	const series = [...uploads.values()]
-		.filter((list) => list.length >= 3)
-		.map((list) => {
-			const sorted = [...list].sort((a, b) => (a.block_index ?? 0) - (b.block_index ?? 0) || a.id - b.id);
-			return { label: `${sorted[0].file_name ?? 'upload'} — ${sorted.length} spectra`, ids: sorted.map((s) => s.id) };
-		});
+	const [{ series, more }, materials, lamps] = await Promise.all([listAbsorbanceSeries(caller.reader, SERIES_SHOWN), listWallMaterials(groupIds), listLamps(groupIds)]);
 	return {
-		spectra: measured.map((s) => ({ id: s.id, name: s.name, label: s.block_label ?? s.name, time: timeFromLabel(s.block_label ?? s.name), pathCm: s.path_cm })),
-		molar: spectra
-			.filter((s) => s.y_unit === 'epsilon' || (Number(s.concentration_m) > 0 && Number(s.path_cm) > 0))
-			.map((s) => ({ id: s.id, name: s.name, part: s.part, lambdaMaxNm: s.lambda_max_nm, longestWavelengthBandNm: s.longest_band_nm })),
-		series,
+		series: series.map((s) => ({
+			label: `${s.fileName ?? 'upload'} — ${s.spectra.length} spectra`,
+			ids: s.spectra.map((x) => x.id),
+			spectra: s.spectra.map((x) => ({ id: x.id, name: x.name, label: x.block_label ?? x.name, time: x.block_time_s ?? timeFromLabel(x.block_label ?? x.name), pathCm: x.path_cm }))
+		})),
+		moreSeries: more,
 		lamps: lamps.map((l) => ({ id: l.id, name: l.name })),
 		materials: materials.map((m) => ({ id: m.id, name: m.name, typicalThicknessMm: m.typicalThicknessMm }))
 	};
