@@ -140,9 +140,9 @@ const isDuplicateKey = (e: unknown) => (e as { errno?: number; code?: string })?
 /**
  * Stores every prepared spectrum of one file in one transaction.
  *
- * Usually in one round trip (db/spectra.ts storeNewFileOneTrip: BEGIN, one compound statement,
- * the read-back, COMMIT); a duplicate is then caught by the unique key on group + file hash + block
- * and named after the rollback. Files too big for one statement, and servers that do not hand out
+ * Usually in one round trip (db/spectra.ts storeNewFileOneTrip: one compound statement with its own
+ * transaction and the read-back); a duplicate is then caught by the unique key on group + file hash
+ * + block and named after the rollback. Files too big for one statement, and servers that do not hand out
  * consecutive ids, take the step-by-step path (`oneTrip: false` forces it, for tests).
  * @throws ApiError 409 when the group already holds this file (names the existing spectrum);
  *   422 too many spectra, 413 too many bytes (nothing written)
