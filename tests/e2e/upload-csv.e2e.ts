@@ -100,3 +100,29 @@ test('lamp from a measured spectrum and wall from a measured spectrum pick it wi
 	await page.getByRole('listbox').getByRole('option').first().click();
 	await expect(page.getByTestId('wall-spectrum-choice')).toHaveValue(/tubing wall/);
 });
+
+test('a wall from optical constants: a refractive-index YAML file is added and chosen; an n-only file is refused in plain words', async ({ page }) => {
+	await signInAs(page, 'member');
+	// ../shared/external/materials (polyanskiy/refractiveindex.info-database, CC0; MANIFEST.md)
+	const dir = path.resolve(process.cwd(), '../shared/external/materials');
+	const name = `Our borosilicate 3.3 sheet ${Date.now().toString(36)}`;
+	await page.goto('/reference/materials');
+	await page.getByText('Add your own wall from optical constants (n, k)').click();
+	const form = page.getByTestId('nk-form');
+	await form.getByLabel('Name').fill('Fused silica, n only');
+	await page.getByTestId('nk-file').setInputFiles(path.join(dir, 'fused-silica-n-malitson-1965.yml'));
+	await form.getByRole('button', { name: 'Add material' }).click();
+	await expect(page.getByTestId('nk-message')).toContainText('refractive index n only, no extinction coefficient k');
+	await form.getByLabel('Name').fill(name);
+	await form.getByLabel('Typical thickness (mm)').fill('1');
+	await page.getByTestId('nk-file').setInputFiles(path.join(dir, 'borosilicate-3.3-float-sheet-nk.yml'));
+	await form.getByRole('button', { name: 'Add material' }).click();
+	// MANIFEST.md: n(589.3 nm) = 1.47143
+	await expect(page.getByTestId('nk-message')).toContainText(`Added “${name}”`);
+	await expect(page.getByTestId('nk-message')).toContainText('n = 1.4714');
+	await expect(page.locator('select[name=material] option:checked')).toContainText(name);
+	// MANIFEST.md: internal T(1 mm, 300 nm) = 0.894; with the two faces' reflection (1 − R)², R = ((n − 1)/(n + 1))², n = 1.47143: 0.830
+	await expect(page.getByTestId('transmission-sentence')).toContainText(/^At 300 nm, 1\.0 mm our borosilicate 3\.3 sheet \w+ transmits 8[23](\.\d)? ?%/);
+	await expect(page.getByTestId('transmission-sentence')).not.toContainText('updating');
+	await page.screenshot({ path: 'test-results/materials-nk-added.png', fullPage: true });
+});
