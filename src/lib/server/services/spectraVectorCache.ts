@@ -109,9 +109,10 @@ export class VectorCache {
 	private readonly termKey: string[] = [];
 	private readonly dirty = new Map<number, Set<number>>();
 	private refreshing: Promise<void> | null = null;
-	/** Scratch of rankedGramHits (grams shared per slot, and which slots were touched). */
+	/** Scratch of rankedGramHits: grams shared per slot, which slots were touched, and a mark per touched slot. */
 	private counts = new Uint16Array(0);
 	private touched = new Int32Array(0);
+	private inTouched = new Uint8Array(0);
 	/** Whether slot order is id order (true unless a row ever arrived with an id below one already held). */
 	idsAscending = true;
 	/** Rows were removed from the table behind the index's back: load again from scratch. */
@@ -340,29 +341,35 @@ export class VectorCache {
 		if (this.counts.length < this.count) {
 			this.counts = new Uint16Array(this.capacity);
 			this.touched = new Int32Array(this.capacity);
+			this.inTouched = new Uint8Array(this.capacity);
 		}
-		const counts = this.counts;
-		const touched = this.touched;
+		const { counts, touched, inTouched } = this;
 		let nt = 0;
+		// each slot enters `touched` once, whatever sets its count (postings, a rename, a tag)
+		const touch = (s: number) => {
+			if (inTouched[s]) return;
+			inTouched[s] = 1;
+			touched[nt++] = s;
+		};
 		for (const g of grams) {
 			const p = this.postings.get(g);
 			if (!p) continue;
 			const a = p.a;
 			for (let i = 0; i < p.n; i++) {
 				const s = a[i];
-				if (counts[s]++ === 0) touched[nt++] = s;
+				if (counts[s]++ === 0) touch(s);
 			}
 		}
 		// renamed slots: their postings are stale, count them from their current grams
 		for (const [s, set] of this.dirty) {
 			let h = 0;
 			for (const g of grams) if (set.has(g)) h++;
-			if (counts[s] === 0) touched[nt++] = s;
+			touch(s);
 			counts[s] = h;
 		}
 		for (const s of extra) {
 			if (s < 0 || s >= this.count) continue;
-			if (counts[s] === 0) touched[nt++] = s;
+			touch(s);
 			if (counts[s] < need) counts[s] = need;
 		}
 		let n = 0;
@@ -391,7 +398,10 @@ export class VectorCache {
 			slots[j] = s;
 			hits[j] = counts[s];
 		}
-		for (let i = 0; i < nt; i++) counts[touched[i]] = 0;
+		for (let i = 0; i < nt; i++) {
+			counts[touched[i]] = 0;
+			inTouched[touched[i]] = 0;
+		}
 		return { slots, hits, n };
 	}
 
