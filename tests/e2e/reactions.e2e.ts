@@ -92,8 +92,10 @@ test.describe('Quantum yield from a series (Library)', () => {
 		await expect(page.getByRole('heading', { level: 1 })).toHaveText('Quantum yield from an irradiation series');
 		const option = page.getByTestId('qy-series').locator('option', { hasText: `e2e-qy-series-${nonce}` });
 		await page.getByTestId('qy-series').selectOption({ label: (await option.textContent())!.trim() });
-		// times come from the column headers
+		// times come from the column headers, the cell path from the upload's metadata (pathCm: 1)
 		await expect(page.getByTestId('qy-times').locator('input').nth(3)).toHaveValue('120');
+		await expect(page.getByTestId('qy-path')).toHaveValue('1');
+		await expect(page.getByText('as stated in the upload')).toBeVisible();
 		// take the last spectrum out and add it back with the Library picker (a series can be edited)
 		const last = items[7];
 		const esc = (t: string) => t.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');

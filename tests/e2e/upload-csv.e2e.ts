@@ -124,5 +124,6 @@ test('a wall from optical constants: a refractive-index YAML file is added and c
 	// MANIFEST.md: internal T(1 mm, 300 nm) = 0.894; with the two faces' reflection (1 − R)², R = ((n − 1)/(n + 1))², n = 1.47143: 0.830
 	await expect(page.getByTestId('transmission-sentence')).toContainText(/^At 300 nm, 1\.0 mm our borosilicate 3\.3 sheet \w+ transmits 8[23](\.\d)? ?%/);
 	await expect(page.getByTestId('transmission-sentence')).not.toContainText('updating');
+	await expect(page.getByTestId('transmission-basis')).toContainText('flat slab at normal incidence, from tabulated k');
 	await page.screenshot({ path: 'test-results/materials-nk-added.png', fullPage: true });
 });

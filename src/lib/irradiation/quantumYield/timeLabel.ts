@@ -11,3 +11,6 @@ export function timeFromLabel(label: string): number | null {
 	const f = unit.startsWith('ms') ? 1e-3 : unit.startsWith('m') ? 60 : unit.startsWith('h') ? 3600 : 1;
 	return v * f;
 }
+
+/** The irradiation time of a series spectrum: the time stored with its block (kinetics files), else read from its label. */
+export const seriesTimeS = (blockTimeS: number | null | undefined, label: string): number | null => blockTimeS ?? timeFromLabel(label);

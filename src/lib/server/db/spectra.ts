@@ -192,10 +192,13 @@ function applyOrder(q: Knex.QueryBuilder, o: SpectrumOrder): Knex.QueryBuilder {
 	return q;
 }
 
+/** Takes the next change number and leaves it in LAST_INSERT_ID() (the row stays locked until commit). */
+const NEXT_CHANGE_SEQ_SQL = 'UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1';
+
 /** Stamps the next Library change number (serialises concurrent writers on one row until commit). */
 export async function nextChangeSeq(trx: Knex | Knex.Transaction): Promise<number> {
 	// LAST_INSERT_ID(expr) puts the new value in the statement's OK packet (insertId): one round trip, no SELECT
-	const [ok] = await trx.raw('UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1');
+	const [ok] = await trx.raw(NEXT_CHANGE_SEQ_SQL);
 	const seq = Number((ok as { insertId?: number }).insertId);
 	if (!seq) throw new Error('library_state has no row 1 (run the migrations)');
 	return seq;
@@ -255,6 +258,19 @@ function storedSide(side: Partial<Record<PointSeries | 'search_vector', Buffer>>
 	return side;
 }
 
+/** The `spectrum_points` and `spectrum_vectors` rows of new spectra (storedSide applied); `idOf(i)` is the i-th id. */
+function sideTableRows(split: { side: Partial<Record<PointSeries | 'search_vector', Buffer>> }[], idOf: (i: number) => unknown) {
+	const points: Record<string, unknown>[] = [];
+	const vectors: Record<string, unknown>[] = [];
+	split.forEach(({ side: given }, i) => {
+		const side = storedSide(given);
+		const id = idOf(i);
+		for (const s of POINT_SERIES) if (side[s]) for (const p of pointRows(0, s, side[s]!)) points.push({ ...p, spectrum_id: id });
+		if (side.search_vector) vectors.push({ spectrum_id: id, vector: side.search_vector });
+	});
+	return { points, vectors };
+}
+
 /**
  * Inserts spectra (one metadata row each) and their points and vectors with
  * multi-row inserts batched below max_allowed_packet; returns the ids in order.
@@ -262,8 +278,6 @@ function storedSide(side: Partial<Record<PointSeries | 'search_vector', Buffer>>
 export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[], seq?: number, opts: { newFile?: boolean } = {}): Promise<number[]> {
 	const changeSeq = seq ?? (await nextChangeSeq(trx));
 	const ids: number[] = [];
-	const points: Record<string, unknown>[] = [];
-	const vectors: Record<string, unknown>[] = [];
 	const split = rows.map((row) => splitRow(row as unknown as Record<string, unknown>));
 	const fileId = rows[0]?.file_id;
 	// (`newFile`: the caller inserted the file in this transaction, so no spectrum can reference it yet)
@@ -279,12 +293,7 @@ export async function insertSpectra(trx: Knex.Transaction, rows: NewSpectrumRow[
 			ids.push(Number(id));
 		}
 	}
-	split.forEach(({ side: given }, i) => {
-		const side = storedSide(given);
-		const sid = ids[i];
-		for (const s of POINT_SERIES) if (side[s]) points.push(...pointRows(sid, s, side[s]!));
-		if (side.search_vector) vectors.push({ spectrum_id: sid, vector: side.search_vector });
-	});
+	const { points, vectors } = sideTableRows(split, (i) => ids[i]);
 	await insertBatched(trx, 'spectrum_points', points);
 	await insertBatched(trx, 'spectrum_vectors', vectors);
 	return ids;
@@ -340,15 +349,9 @@ export async function storeNewFileOneTrip(
 	if (!rows.length) throw new Error('storeNewFileOneTrip: no spectra');
 	const chunks = chunkBytes(file.bytes, FILE_CHUNK_BYTES);
 	const split = rows.map((row) => splitRow(row as unknown as Record<string, unknown>));
-	const points: Record<string, unknown>[] = [];
-	const vectors: Record<string, unknown>[] = [];
-	split.forEach(({ side: given }, i) => {
-		const side = storedSide(given);
-		for (const s of POINT_SERIES) if (side[s]) for (const p of pointRows(0, s, side[s]!)) points.push({ ...p, spectrum_id: sqlVar('ws_first', i) });
-		if (side.search_vector) vectors.push({ spectrum_id: sqlVar('ws_first', i), vector: side.search_vector });
-	});
+	const { points, vectors } = sideTableRows(split, (i) => sqlVar('ws_first', i));
 	const statements = [
-		'UPDATE library_state SET change_seq = LAST_INSERT_ID(change_seq + 1) WHERE id = 1',
+		NEXT_CHANGE_SEQ_SQL,
 		// no row 1: NULL, which the NOT NULL change_seq of the spectra insert refuses
 		'SET @ws_seq = IF(ROW_COUNT() = 1, LAST_INSERT_ID(), NULL)',
 		insertSql('spectrum_files', [{ group_id: file.groupId, sha256: file.sha256, file_name: file.fileName.slice(0, 255), byte_count: file.bytes.byteLength, chunk_count: chunks.length }]),

@@ -250,11 +250,11 @@ async function fuzzyHits(c: VectorCache, accept: (slot: number) => boolean, text
 	const docs = head.map((sl) => ({ slot: sl, name: c.names[sl], synonyms: c.synonyms[sl], cas: c.cas[sl] ?? '', tags: tags.get(c.ids[sl]) ?? [] }));
 	const fused: Hit[] = new Fuse(docs, FUSE_OPTIONS).search(text).map((h) => ({ id: c.ids[h.item.slot], slot: h.item.slot, score: h.score ?? 0 }));
 	const seen = new Set(fused.map((h) => h.slot!));
-	// the rest, in trigram rank order: the head's slots fuse.js did not match, then everything after the head
-	const restHead = head.filter((sl) => !seen.has(sl));
+	// the rest, in trigram rank order (positions in `ranked`): the head's slots fuse.js did not match, then all after the head
+	const restHead = head.flatMap((sl, j) => (seen.has(sl) ? [] : [j]));
 	const total = fused.length + restHead.length + (ranked.n - headN);
 	const restHit = (k: number): Hit => {
-		const j = k < restHead.length ? ranked.slots.indexOf(restHead[k]) : headN + (k - restHead.length);
+		const j = k < restHead.length ? restHead[k] : headN + (k - restHead.length);
 		const sl = ranked.slots[j];
 		return { id: c.ids[sl], slot: sl, score: Number((1 - ranked.hits[j] / grams.length).toFixed(4)) };
 	};

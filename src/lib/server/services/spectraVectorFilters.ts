@@ -1,6 +1,11 @@
 /**
  * Filters on the stored 1 nm search vectors (190–1100 nm, index = λ − 190):
  * "absorbs at λ with at least A or ε" and "transparent above λ".
+ *
+ * Two forms of each rule: over a whole vector (vectorAt, absorptionAt, absorbsAt, transparentAbove —
+ * the plain statement of the rule, which the tests hold the fast form to), and from what the Library
+ * index keeps per spectrum (absorbsAtValue with its value at λ and maximum, transparentAboveFromFacts),
+ * which the searches use.
  */
 import { GRID_FROM_NM, SEARCH_LENGTH } from '../../spectra/grid';
 

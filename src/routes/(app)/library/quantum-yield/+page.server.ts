@@ -1,5 +1,5 @@
 import { redirect } from '@sveltejs/kit';
-import { timeFromLabel } from '$lib/irradiation/quantumYield/timeLabel';
+import { seriesTimeS } from '$lib/irradiation/quantumYield/timeLabel';
 import { listAbsorbanceSeries } from '$lib/server/db/spectra';
 import { listWallMaterials } from '$lib/server/db/wallMaterials';
 import { listLamps } from '$lib/server/db/lamps';
@@ -23,7 +23,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		series: series.map((s) => ({
 			label: `${s.fileName ?? 'upload'} — ${s.spectra.length} spectra`,
 			ids: s.spectra.map((x) => x.id),
-			spectra: s.spectra.map((x) => ({ id: x.id, name: x.name, label: x.block_label ?? x.name, time: x.block_time_s ?? timeFromLabel(x.block_label ?? x.name), pathCm: x.path_cm }))
+			spectra: s.spectra.map((x) => ({ id: x.id, name: x.name, label: x.block_label ?? x.name, time: seriesTimeS(x.block_time_s, x.block_label ?? x.name), pathCm: x.path_cm }))
 		})),
 		moreSeries: more,
 		lamps: lamps.map((l) => ({ id: l.id, name: l.name })),
